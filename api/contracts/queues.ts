@@ -1,0 +1,27 @@
+/**
+ * Queue names and job payload schemas shared by the API (which queues) and the
+ * worker (which re-parses every payload with the same schema).
+ */
+import { z } from 'zod';
+
+export const QUEUE_NAME = 'pulsekeeper';
+
+export const ToaStatisticsJob = z.object({ pulsarId: z.number().int().positive() }).strict();
+export type ToaStatisticsJob = z.infer<typeof ToaStatisticsJob>;
+
+export const JOB_TYPES = { toaStatistics: 'toa-statistics' } as const;
+
+/** Progress as reported by every job: a percentage and a stage name for the progress bar. */
+export const JobProgress = z.object({ percent: z.number().min(0).max(100), stage: z.string() });
+export type JobProgress = z.infer<typeof JobProgress>;
+
+/** Result of the toa-statistics job. */
+export const ToaStatisticsResult = z.object({
+  pulsarId: z.number(),
+  toaCount: z.number(),
+  firstMjd: z.string().nullable(),
+  lastMjd: z.string().nullable(),
+  observatories: z.array(z.string()),
+  backends: z.array(z.string()),
+});
+export type ToaStatisticsResult = z.infer<typeof ToaStatisticsResult>;
