@@ -1,0 +1,19 @@
+import { defineConfig } from 'vite';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+// The client is served by Vite in development and proxies /api to the Express app.
+const webPort = Number(process.env.PULSEKEEPER_WEB_PORT ?? 5173);
+const apiPort = Number(process.env.PULSEKEEPER_API_PORT ?? 4400);
+
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  build: { outDir: 'dist', emptyOutDir: true },
+  server: {
+    host: '127.0.0.1',
+    port: webPort,
+    strictPort: true,
+    proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } },
+  },
+  preview: { host: '127.0.0.1' },
+});

@@ -1,0 +1,32 @@
+// Every client route in one place: `path` is the router pattern, `href` builds a link.
+export const paths = {
+  signIn: {
+    path: '/sign-in',
+    href: (redirectTo?: string) =>
+      redirectTo && redirectTo !== '/' ? `/sign-in?redirectTo=${encodeURIComponent(redirectTo)}` : '/sign-in',
+  },
+  resetPassword: { path: '/reset-password', href: () => '/reset-password' },
+  resetPasswordComplete: {
+    path: '/reset-password/:token',
+    href: (token: string) => `/reset-password/${encodeURIComponent(token)}`,
+  },
+  acceptInvitation: {
+    path: '/invitations/:token',
+    href: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  },
+  dashboard: { path: '/', href: () => '/' },
+  pulsars: { path: '/pulsars', href: () => '/pulsars' },
+  pulsar: { path: '/pulsars/:id', href: (id: string) => `/pulsars/${encodeURIComponent(id)}` },
+  observatories: { path: '/observatories', href: () => '/observatories' },
+  users: { path: '/users', href: () => '/users' },
+  outbox: { path: '/outbox', href: () => '/outbox' },
+} as const;
+
+/**
+ * Returns `target` when it is a same-site path (starts with one "/", not "//"), else "/".
+ * Used on the sign-in redirect so a crafted link cannot send the user to another site.
+ */
+export function safeRedirectTarget(target: string | null | undefined): string {
+  if (!target || !target.startsWith('/') || target.startsWith('//') || target.startsWith('/\\')) return '/';
+  return target;
+}

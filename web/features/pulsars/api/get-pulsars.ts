@@ -1,0 +1,26 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+
+export interface Pulsar {
+  id: string | number;
+  name: string;
+  raHms: string;
+  decDms: string;
+  toaCount: number;
+  firstMjd: number | string | null;
+  lastMjd: number | string | null;
+  observatories: string[];
+  createdAt: string;
+}
+
+export const pulsarKeys = {
+  all: ['pulsars'] as const,
+  list: () => ['pulsars', 'list'] as const,
+  detail: (id: string) => ['pulsars', 'detail', id] as const,
+};
+
+export const getPulsars = () => api.get<Pulsar[]>('/pulsars');
+
+export const pulsarsQueryOptions = () => queryOptions({ queryKey: pulsarKeys.list(), queryFn: getPulsars });
+
+export const usePulsars = () => useQuery(pulsarsQueryOptions());
