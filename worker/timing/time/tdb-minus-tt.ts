@@ -88,15 +88,22 @@ export function topocentricTdbMinusTtSeconds(tt: Mjd, ut1FractionOfDay: number, 
 }
 
 /**
- * A reusable fast evaluator of TDB − TT (module Note): geocentric part from a
- * lazily filled one-day grid, topocentric part in closed form.
+ * A fast evaluator of TDB − TT (module Note): geocentric part from a lazily
+ * filled one-day grid shared by the whole process, topocentric part in closed form.
  *
  * Accuracy: ≤ 1e-11 s from direct eraDtdb (measured; tests/engine/time/tdb-minus-tt.test.ts).
  */
-export class TdbMinusTtEvaluator {
-  private readonly grid = new UniformGridInterpolator(GRID_STEP_DAYS, GRID_POINTS, 1, (nodeMjd, out) => {
+// One grid per process: a node's value depends only on its date, so every evaluator shares it.
+let sharedGeocentricGrid: UniformGridInterpolator | undefined;
+function geocentricGridOfProcess(): UniformGridInterpolator {
+  sharedGeocentricGrid ??= new UniformGridInterpolator(GRID_STEP_DAYS, GRID_POINTS, 1, (nodeMjd, out) => {
     out[0] = erfaLibrary().eraDtdb(MJD_ZERO_AS_JD, nodeMjd, 0, 0, 0, 0);
   });
+  return sharedGeocentricGrid;
+}
+
+export class TdbMinusTtEvaluator {
+  private readonly grid = geocentricGridOfProcess();
   private readonly value = new Float64Array(1);
 
   /** Geocentric TDB − TT (seconds) at `tt`. */
@@ -110,7 +117,7 @@ export class TdbMinusTtEvaluator {
     return this.geocentricSeconds(tt) + topocentricTdbMinusTtSeconds(tt, ut1FractionOfDay, site);
   }
 
-  /** Number of eraDtdb calls made so far. */
+  /** Number of eraDtdb calls made so far in this process (the grid is shared). */
   get erfaCallCount(): number {
     return this.grid.evaluatedNodeCount;
   }
