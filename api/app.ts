@@ -1,0 +1,128 @@
+/**
+ * Builds the Express app without listening (tests drive it with supertest;
+ * api/server.ts listens). Order: security headers → JSON body (1 MB) →
+ * session (MariaDB) → CSRF → current user → routes (each behind its access
+ * check, see routes/route-table.ts) → 404 → the one error handler.
+ */
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import express, { type Application } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { randomBytes } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import type { AppDeps, MailDeps } from './app-deps';
+import { loadCurrentUser } from './auth/current-user';
+import { createCsrf } from './middleware/csrf';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { createRateLimits, DEFAULT_RATE_LIMITS } from './middleware/rate-limits';
+import { addAuthRoutes } from './routes/auth/router';
+import { addHealthRoutes } from './routes/health/router';
+import { addInvitationRoutes } from './routes/invitations/router';
+import { addJobRoutes } from './routes/jobs/router';
+import { addObservatoryRoutes } from './routes/observatories/router';
+import { addOutboxRoutes } from './routes/outbox/router';
+import { addPulsarRoutes } from './routes/pulsars/router';
+import { RouteTable } from './routes/route-table';
+import { addUserRoutes } from './routes/users/router';
+
+export const SESSION_COOKIE_NAME = 'pk.sid';
+export const SESSION_IDLE_MS = 8 * 60 * 60 * 1000; // rolling: each request restarts the 8 h
+export const JSON_BODY_LIMIT = '1mb';
+const SESSION_CLEANUP_INTERVAL_MS = 15 * 60 * 1000;
+
+function sessionSecret(deps: AppDeps): string {
+  const secret = deps.config.api.sessionSecret;
+  if (secret) return secret;
+  if (deps.config.profile === 'production') throw new Error('PULSEKEEPER_SESSION_SECRET must be set in production');
+  (deps.log ?? console.error)('PULSEKEEPER_SESSION_SECRET is not set: sessions end when the API restarts', null);
+  return randomBytes(32).toString('hex');
+}
+
+function securityHeaders(behindTls: boolean) {
+  return helmet({
+    contentSecurityPolicy: {
+      useDefaults: false,
+      directives: {
+        defaultSrc: ["'self'"],
+        scriptSrc: ["'self'"],
+        styleSrc: ["'self'"],
+        fontSrc: ["'self'"],
+        imgSrc: ["'self'", 'data:'],
+        connectSrc: ["'self'"],
+        objectSrc: ["'none'"],
+        baseUri: ["'self'"],
+        formAction: ["'self'"],
+        frameAncestors: ["'none'"],
+        scriptSrcAttr: ["'none'"],
+        ...(behindTls ? { upgradeInsecureRequests: [] } : {}),
+      },
+    },
+    strictTransportSecurity: behindTls,
+  });
+}
+
+export function createApp(deps: AppDeps): Application {
+  const { config, knex } = deps;
+  const log = deps.log ?? ((message: string, err: unknown) => console.error(message, err));
+  const app = express();
+  if (config.api.behindTls) app.set('trust proxy', 1); // the reverse proxy's X-Forwarded-* (client IP, https)
+  app.use(securityHeaders(config.api.behindTls));
+
+  const store = new ConnectSessionKnexStore({ knex, tableName: 'sessions', createTable: false, cleanupInterval: SESSION_CLEANUP_INTERVAL_MS });
+  store.ready.catch((err: unknown) => log('session store not ready', err)); // get/set report it again per request
+  app.locals.sessionStore = store;
+
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
+  app.use(
+    '/api',
+    session({
+      name: SESSION_COOKIE_NAME,
+      secret: sessionSecret(deps),
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.api.behindTls, maxAge: SESSION_IDLE_MS },
+    }),
+  );
+  const csrf = createCsrf();
+  app.use('/api', csrf.protect);
+  app.use('/api', loadCurrentUser(knex));
+
+  const routes = new RouteTable(app);
+  app.locals.routeTable = routes;
+  const mail: MailDeps = { knex, mailer: deps.mailer, publicUrl: config.api.publicUrl, log };
+  const limits = createRateLimits({ ...DEFAULT_RATE_LIMITS, ...deps.rateLimits });
+  addHealthRoutes(routes, deps);
+  addAuthRoutes(routes, deps, mail, csrf, limits);
+  addInvitationRoutes(routes, deps);
+  addUserRoutes(routes, deps, mail);
+  addOutboxRoutes(routes, deps);
+  addObservatoryRoutes(routes, deps);
+  addPulsarRoutes(routes, deps);
+  addJobRoutes(routes, deps);
+  app.use('/api', apiNotFound);
+
+  if (deps.clientDir && existsSync(path.join(deps.clientDir, 'index.html'))) {
+    const indexHtml = path.join(deps.clientDir, 'index.html');
+    app.use(express.static(deps.clientDir, { index: false }));
+    app.use((req, res, next) => {
+      if (req.method === 'GET' || req.method === 'HEAD') res.sendFile(indexHtml); // SPA fallback: the client routes
+      else next();
+    });
+  }
+  app.use(apiNotFound);
+  app.use(errorHandler(log));
+  return app;
+}
+
+/** Stops the session store's cleanup timer (call before destroying knex). */
+export function closeApp(app: Application): void {
+  const store = app.locals.sessionStore as ConnectSessionKnexStore | undefined;
+  if (store) clearTimeout(store.nextDbCleanup);
+}
