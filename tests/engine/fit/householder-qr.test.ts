@@ -52,18 +52,36 @@ describe('householderQr (Golub & Van Loan 2013, §5.2.2)', () => {
     }
   });
 
-  it('the orthogonal transformation keeps the norm of b (‖Qᵀb‖ = ‖b‖)', () => {
-    const norm = (x: Float64Array) => Math.sqrt(x.reduce((s, v) => s + v * v, 0));
-    expectWithin(norm(qr.qtRhs!) / norm(rhsOriginal), 1, 1e-14, '‖Qᵀb‖/‖b‖');
+  it('the orthogonal transformation keeps the norm of b: ‖(Qᵀb)₀‥ₚ₋₁‖² + Σ residual components² = ‖b‖²', () => {
+    const squares = (x: Float64Array) => x.reduce((s, v) => s + v * v, 0);
+    const total = squares(qr.qtRhs!) + squares(qr.residualComponents!);
+    expectWithin(total / squares(rhsOriginal), 1, 1e-14, 'norm² ratio');
   });
 
-  it('a column already zero below the diagonal gets τ = 0 and stays as it is', () => {
-    const m = 4;
-    const a = Float64Array.from([2, 0, 0, 0, 1, 3, 4, 0]); // column 0 = 2e₀; column 1 = (1, 3, 4, 0)
-    const f = householderQr(a, m, 2);
-    expect(f.tau[0]).toBe(0);
-    expect(f.r[0]).toBe(2);
-    expectWithin(Math.abs(f.r[3]), 5, 1e-15, '|R11| = ‖(3, 4, 0)‖'); // hand check: 3-4-5 triangle
+  it('Q·R = A across several chunks, a last chunk shorter than p and a column that is zero in one chunk', () => {
+    const m = 2 * qr.chunkRows + 1;
+    const a = randomColumnMajor(m, p, 99);
+    for (let i = qr.chunkRows; i < 2 * qr.chunkRows; i++) a[3 * m + i] = 0; // column 3 vanishes in chunk 1
+    const f = householderQr(a.slice(), m, p);
+    const qm = thinQ(f);
+    let worst = 0;
+    for (let j = 0; j < p; j++) {
+      for (let i = 0; i < m; i++) {
+        let s = 0;
+        for (let k = 0; k <= j; k++) s += qm[k * m + i] * f.r[k * p + j];
+        worst = Math.max(worst, Math.abs(s - a[j * m + i]));
+      }
+    }
+    expectWithin(worst / maxAbs(a), 0, 1e-14, 'max |QR − A| / max |A|');
+  });
+
+  it('hand check: columns (2, 0, 0, 0) and (1, 3, 4, 0) give |R₀₀| = 2, |R₀₁| = 1, |R₁₁| = 5', () => {
+    const a = Float64Array.from([2, 0, 0, 0, 1, 3, 4, 0]);
+    const f = householderQr(a, 4, 2);
+    expectWithin(Math.abs(f.r[0]), 2, 1e-15, '|R00|');
+    expectWithin(Math.abs(f.r[1]), 1, 1e-15, '|R01|');
+    expectWithin(Math.abs(f.r[3]), 5, 1e-15, '|R11| = ‖(3, 4, 0)‖'); // 3-4-5 triangle
+    expect(f.r[2]).toBe(0);
   });
 
   it('rejects shapes with n < p or wrong lengths', () => {

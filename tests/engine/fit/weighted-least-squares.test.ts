@@ -148,7 +148,7 @@ describe('identity checks', () => {
         expect(fit.covariance[j * p + k]).toBe(fit.covariance[k * p + j]);
         c.set(j, k, fit.covariance[j * p + k]);
       }
-      expect(fit.uncertainties[j]).toBe(Math.sqrt(fit.covariance[j * p + j]));
+      expectWithin(fit.uncertainties[j], Math.sqrt(fit.covariance[j * p + j]), 1e-15 * fit.uncertainties[j], `σ[${j}]`);
     }
     expect(new CholeskyDecomposition(c).isPositiveDefinite()).toBe(true);
   });
@@ -168,6 +168,27 @@ describe('identity checks', () => {
     expectWithin(other.solution[2] * 1e9, fit.solution[2], 1e-12 * Math.abs(fit.solution[2]), 'x₂ rescaled');
     expectWithin(other.uncertainties[2] * 1e9, fit.uncertainties[2], 1e-12 * fit.uncertainties[2], 'σ₂ rescaled');
     expectWithin(other.conditionNumber, fit.conditionNumber, 1e-9 * fit.conditionNumber, 'scaled condition number');
+  });
+});
+
+describe('extreme column scales', () => {
+  it('columns scaled by 2^±664 ≈ 1e±200 (whose squares overflow or underflow) give the same answer as unit columns', () => {
+    const n = 300;
+    const p = 3;
+    const { design, sigmas, rhs } = randomProblem(n, p, 31);
+    const reference = solveWeightedLeastSquares(design, n, p, rhs, sigmas);
+    const extreme = design.slice();
+    for (let i = 0; i < n; i++) {
+      extreme[i] *= 2 ** 664; // powers of two: the scaled problem is exactly representable
+      extreme[2 * n + i] *= 2 ** -664;
+    }
+    const got = solveWeightedLeastSquares(extreme, n, p, rhs, sigmas);
+    const units = [2 ** 664, 1, 2 ** -664];
+    for (let j = 0; j < p; j++) {
+      const shiftInSigmas = Math.abs(got.solution[j] * units[j] - reference.solution[j]) / reference.uncertainties[j];
+      expectWithin(shiftInSigmas, 0, 1e-14, `x[${j}] shift in σ`);
+      expectWithin(relativeDifference(got.uncertainties[j] * units[j], reference.uncertainties[j]), 0, 1e-13, `σ[${j}]`);
+    }
   });
 });
 

@@ -2,52 +2,74 @@
  * Householder QR factorisation of a tall column-major matrix, written for speed.
  *
  * Why our own code: ml-matrix's QrDecomposition works on row-major arrays of
- * row objects and takes ~4.8 s on 100 000 × 30 here (shared/STACK.md §9), ~20×
- * this routine, which walks contiguous Float64Array columns with tight loops
- * (~0.2 s on the same problem; scripts/bench/fit.ts). An unblocked sweep was
- * measured against a row-chunked (cache-blocked) variant; on this machine the
- * two were within noise of each other, so the simpler unblocked form is kept
- * because it also leaves the Householder vectors in place, which lets tests
- * rebuild Q and check Q·R = A.
+ * row objects and takes ~4.8 s on 100 000 × 30 here (shared/STACK.md §9),
+ * roughly 10× this routine, which walks contiguous Float64Array column
+ * segments with tight loops (scripts/bench/fit.ts prints both).
  *
- * Storage (LAPACK convention): after the call the upper triangle of `a` holds R
- * and the part below the diagonal of column k holds the Householder vector v_k
- * (whose k-th entry is an implicit 1); H_k = I − τ_k v_k v_kᵀ, Q = H_0 H_1 … H_{p−1}.
+ * Method: the rows are taken in chunks of CHUNK_ROWS (cache blocking). The
+ * running p×p factor R is stacked on each new chunk, [R; A_c], and that
+ * (p + m)×p matrix is reduced by p Householder reflections back to [R'; 0]
+ * (sequential "tall-skinny" QR: Demmel, Grigori, Hoemmen & Langou 2012, SIAM J.
+ * Sci. Comput. 34, A206; QR updating by rows: Golub & Van Loan §6.5.3). The
+ * flop count equals that of one unblocked sweep, but each chunk (~60 kB) stays
+ * in cache for all p columns, where an unblocked sweep streams the whole 24 MB
+ * matrix through memory p times. Both were measured; on this shared 2-core
+ * machine the chunked form was ~1.3× faster and much less sensitive to load.
+ *
+ * Storage after the call: `r` holds R (row-major p×p). Below the R rows, the
+ * chunk's part of each Householder vector overwrites column k of `a` in that
+ * chunk (its R-row component is an implicit 1 at row k; its other R-row
+ * components are zero because R is triangular), and `tau[c·p + k]` is its
+ * coefficient: H = I − τ v vᵀ. `thinQ` rebuilds Q from these for checks.
  *
  * References: Golub & Van Loan, Matrix Computations (4th ed., 2013), §5.1.2–5.1.3
- * (Algorithm 5.1.1, the Householder vector) and §5.2.2 (Algorithm 5.2.1,
- * Householder QR).
+ * (Algorithm 5.1.1, the Householder vector), §5.2.2 (Algorithm 5.2.1,
+ * Householder QR), §6.5.3 (appending rows).
  */
 
-/** The factored form of A = Q·R. */
+/** Rows per chunk: 256 rows × 30 columns × 8 B ≈ 60 kB stays in L2 (Note 3 of householderQr). */
+const CHUNK_ROWS = 256;
+
+/** The factored form of A = Q·R (module header: storage). */
 export interface HouseholderQr {
   readonly n: number;
   readonly p: number;
-  /** column-major n×p: R on and above the diagonal, Householder vectors below it */
+  readonly chunkRows: number;
+  /** column-major n×p: the chunk parts of the Householder vectors (module header) */
   readonly factored: Float64Array;
-  /** p reflector coefficients τ_k (0 for a column with nothing to eliminate) */
+  /** ceil(n / chunkRows)·p reflector coefficients, chunk-major; 0 where nothing was eliminated */
   readonly tau: Float64Array;
-  /** p×p upper-triangular R, row-major (a copy, convenient for small dense algebra) */
+  /** p×p upper-triangular R, row-major */
   readonly r: Float64Array;
-  /** Qᵀ·rhs, length n, when a right-hand side was given: entries p..n−1 are the residual's components */
+  /** the first p entries of Qᵀ·rhs, when a right-hand side was given */
   readonly qtRhs?: Float64Array;
+  /**
+   * the given rhs array, overwritten by the remaining n components of Qᵀ·rhs:
+   * their sum of squares is the least-squares residual norm² min‖A x − rhs‖²
+   */
+  readonly residualComponents?: Float64Array;
 }
 
 /**
  * Householder QR of the n×p column-major matrix `a` (n ≥ p), applying the same
  * reflections to `rhs` when given.
  *
- * @param a    column-major n×p (column j at offset j·n); OVERWRITTEN by the factors (Note 1)
+ * @param a    column-major n×p (column j at offset j·n); OVERWRITTEN by the reflectors (Note 1)
  * @param n    rows
  * @param p    columns, 1 ≤ p ≤ n
- * @param rhs  optional right-hand side of length n; OVERWRITTEN by Qᵀ·rhs (Note 1)
- * @returns    the factored form; `r` is a fresh p×p row-major copy of R
+ * @param rhs  optional right-hand side of length n; OVERWRITTEN (Note 1, HouseholderQr.residualComponents)
+ * @returns    the factored form with R (row-major p×p) and Qᵀ·rhs
  *
  * Notes: 1. In place so that a 100 000 × 30 problem needs no second 24 MB array;
  *           pass a copy if the original is still needed.
  *        2. The reflector sign is chosen as −sign(α) so that α − β never cancels
  *           (Golub & Van Loan §5.1.3); R's diagonal may therefore be negative.
- * Cost: 2np² − 2p³/3 flops. Accuracy: backward stable, ‖A − QR‖ ≈ ε‖A‖ (Golub & Van Loan §5.2.2).
+ *        3. Chunking changes the order of operations, not the algorithm: the
+ *           result is a Householder QR with the same backward stability.
+ *        4. No overflow protection inside: entries of `a` must stay below ~1e150
+ *           in magnitude (weighted-least-squares.ts pre-scales by powers of two).
+ * Cost: 2np² flops (+ p³ per chunk). Accuracy: backward stable, ‖A − QR‖ ≈ ε‖A‖
+ *   column by column (Golub & Van Loan §5.2.2; Higham 2002, §19.3).
  */
 export function householderQr(a: Float64Array, n: number, p: number, rhs?: Float64Array): HouseholderQr {
   if (!(Number.isInteger(n) && Number.isInteger(p) && p >= 1 && n >= p)) {
@@ -55,72 +77,96 @@ export function householderQr(a: Float64Array, n: number, p: number, rhs?: Float
   }
   if (a.length !== n * p) throw new RangeError(`householderQr: a.length ${a.length} ≠ n·p = ${n * p}`);
   if (rhs && rhs.length !== n) throw new RangeError(`householderQr: rhs.length ${rhs.length} ≠ n = ${n}`);
-  const tau = new Float64Array(p);
-  for (let k = 0; k < p; k++) {
-    tau[k] = makeReflector(a, n, k);
-    if (tau[k] === 0) continue;
-    for (let j = k + 1; j < p; j++) applyReflector(a, n, k, tau[k], a, j * n);
-    if (rhs) applyReflector(a, n, k, tau[k], rhs, 0);
+  const chunks = Math.ceil(n / CHUNK_ROWS);
+  const tau = new Float64Array(chunks * p);
+  const r = new Float64Array(p * p);
+  const qtRhs = rhs ? new Float64Array(p) : undefined;
+  for (let c = 0; c < chunks; c++) {
+    const first = c * CHUNK_ROWS;
+    const end = Math.min(n, first + CHUNK_ROWS);
+    for (let k = 0; k < p; k++) {
+      const t = makeReflector(a, n, k, first, end, r, k * p + k);
+      tau[c * p + k] = t;
+      if (t === 0) continue;
+      for (let j = k + 1; j < p; j++) applyReflector(a, n, k, first, end, t, r, k * p + j, a, j * n);
+      if (rhs) applyReflector(a, n, k, first, end, t, qtRhs!, k, rhs, 0);
+    }
   }
-  return { n, p, factored: a, tau, r: upperTriangle(a, n, p), qtRhs: rhs };
+  return { n, p, chunkRows: CHUNK_ROWS, factored: a, tau, r, qtRhs, residualComponents: rhs };
 }
 
 /**
- * Turns column k (rows k..n−1) into β·e_k and stores v_k below the diagonal.
- * Returns τ_k. Golub & Van Loan Algorithm 5.1.1 (sign choice of Note 2).
+ * Reflects the vector (R_kk; a[first..end) of column k) onto β·e_k: R_kk ← β,
+ * chunk part ← v (normalised so that v's R-row component is 1). Returns τ.
+ * Golub & Van Loan Algorithm 5.1.1 (sign choice of Note 2).
  */
-function makeReflector(a: Float64Array, n: number, k: number): number {
+function makeReflector(a: Float64Array, n: number, k: number, first: number, end: number, top: Float64Array, topIndex: number): number {
   const ok = k * n;
   let tailSquares = 0;
-  for (let i = k + 1; i < n; i++) tailSquares += a[ok + i] * a[ok + i];
-  const alpha = a[ok + k];
-  if (tailSquares === 0) return 0; // already upper triangular in this column: H_k = I
+  for (let i = first; i < end; i++) tailSquares += a[ok + i] * a[ok + i];
+  if (tailSquares === 0) return 0; // nothing to eliminate in this chunk: H = I
+  const alpha = top[topIndex];
   const norm = Math.sqrt(alpha * alpha + tailSquares);
   const beta = alpha >= 0 ? -norm : norm;
-  const scale = 1 / (alpha - beta); // v = x − βe_k, normalised so that v_k = 1: Golub & Van Loan §5.1.3
-  for (let i = k + 1; i < n; i++) a[ok + i] *= scale;
-  a[ok + k] = beta;
+  const scale = 1 / (alpha - beta); // v = x − βe_k, normalised to v_k = 1: Golub & Van Loan §5.1.3
+  for (let i = first; i < end; i++) a[ok + i] *= scale;
+  top[topIndex] = beta;
   return (beta - alpha) / beta; // τ = 2/(vᵀv) for that normalisation: Golub & Van Loan §5.1.3
 }
 
 /**
- * y ← H_k y for the vector y stored at `target[offset .. offset+n)`;
- * H_k = I − τ v vᵀ with v in column k of `a` (implicit 1 at row k).
+ * y ← H y for the stacked vector y = (top[topIndex]; target[offset + first .. offset + end)),
+ * H = I − τ v vᵀ with v = (1; chunk part of column k of `a`).
  */
-function applyReflector(a: Float64Array, n: number, k: number, tau: number, target: Float64Array, offset: number): void {
+function applyReflector(
+  a: Float64Array,
+  n: number,
+  k: number,
+  first: number,
+  end: number,
+  tau: number,
+  top: Float64Array,
+  topIndex: number,
+  target: Float64Array,
+  offset: number,
+): void {
   const ok = k * n;
-  let dot = target[offset + k];
-  for (let i = k + 1; i < n; i++) dot += a[ok + i] * target[offset + i];
+  let dot = top[topIndex];
+  for (let i = first; i < end; i++) dot += a[ok + i] * target[offset + i];
   const s = tau * dot;
-  target[offset + k] -= s;
-  for (let i = k + 1; i < n; i++) target[offset + i] -= s * a[ok + i];
-}
-
-/** The p×p upper triangle of the factored matrix, row-major. */
-function upperTriangle(a: Float64Array, n: number, p: number): Float64Array {
-  const r = new Float64Array(p * p);
-  for (let j = 0; j < p; j++) {
-    for (let i = 0; i <= j; i++) r[i * p + j] = a[j * n + i];
-  }
-  return r;
+  top[topIndex] -= s;
+  for (let i = first; i < end; i++) target[offset + i] -= s * a[ok + i];
 }
 
 /**
  * The thin orthogonal factor Q (n×p, column-major, orthonormal columns) with A = Q·R.
  *
  * @param qr  a factorisation from `householderQr`
- * @returns   Q's first p columns, Q = H_0 … H_{p−1} applied to the first p unit vectors
+ * @returns   Q's first p columns
  *
- * Meant for checks and diagnostics (it costs another 2np² flops); the solver
- * never forms Q. Golub & Van Loan §5.1.6 (backward accumulation).
+ * Meant for checks and diagnostics (another ~2np² flops); the solver never
+ * forms Q. Chunk c's stacked step is [R_{c−1}; A_c] = Q_c [R_c; 0], so the rows
+ * of chunk c in Q are B_c·M with M = T_{c+1}⋯T_last, where T_c and B_c are the
+ * top p and bottom rows of Q_c's first p columns; M is carried from the last
+ * chunk backwards (backward accumulation, Golub & Van Loan §5.1.6).
  */
 export function thinQ(qr: HouseholderQr): Float64Array {
-  const { n, p, factored, tau } = qr;
+  const { n, p, chunkRows, factored, tau } = qr;
   const q = new Float64Array(n * p);
-  for (let j = 0; j < p; j++) q[j * n + j] = 1;
-  for (let k = p - 1; k >= 0; k--) {
-    if (tau[k] === 0) continue;
-    for (let j = 0; j < p; j++) applyReflector(factored, n, k, tau[k], q, j * n);
+  const chunks = Math.ceil(n / chunkRows);
+  let m = new Float64Array(p * p); // column-major p×p
+  for (let j = 0; j < p; j++) m[j * p + j] = 1;
+  for (let c = chunks - 1; c >= 0; c--) {
+    const first = c * chunkRows;
+    const end = Math.min(n, first + chunkRows);
+    const top = m.slice();
+    // Q_c = H_0 H_1 … H_{p−1}, applied to [M; 0] from the right-most reflector first.
+    for (let k = p - 1; k >= 0; k--) {
+      const t = tau[c * p + k];
+      if (t === 0) continue;
+      for (let j = 0; j < p; j++) applyReflector(factored, n, k, first, end, t, top, j * p + k, q, j * n);
+    }
+    m = top;
   }
   return q;
 }

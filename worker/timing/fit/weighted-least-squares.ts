@@ -13,7 +13,7 @@ export interface LinearSolution {
   solution: Float64Array;
   /** p×p row-major, (AᵀWA)⁻¹ in the caller's units */
   covariance: Float64Array;
-  /** sqrt(diag(covariance)), in the caller's units */
+  /** sqrt(diag(covariance)), in the caller's units (Note 6) */
   uncertainties: Float64Array;
   /** of the column-scaled weighted design, descending */
   singularValues: Float64Array;
@@ -44,12 +44,13 @@ const DEGENERACY_COMPONENT_FRACTION = 0.25;
  *
  * Notes: 1. Rows are divided by σ_i, so the problem becomes ordinary least
  *           squares on Ã = W^½A, b̃ = W^½ rhs (Golub & Van Loan 2013, §6.1.5).
- *        2. Each column of Ã is then scaled to unit 2-norm (Ã = Â·D). Column
+ *        2. Each column of Ã is scaled to unit 2-norm (Ã = Â·D; applied to R after
+ *           the QR, see equilibratedR). Column
  *           equilibration removes the conditioning that comes only from units
  *           (seconds per Hz against seconds per radian), so the singular values
  *           and the rank test describe real degeneracy (van der Sluis 1969,
  *           Numer. Math. 14, 14; Golub & Van Loan §3.5.2).
- *        3. Householder QR reduces Â to the p×p factor R and Qᵀb̃
+ *        3. Householder QR reduces Ã to the p×p factor R and Qᵀb̃
  *           (worker/timing/fit/householder-qr.ts); ml-matrix's SVD of R = UΣVᵀ
  *           then gives the singular values of Â, and the solution
  *           y = VΣ⁻¹Uᵀ(Qᵀb̃)_{0..p−1}, x = D⁻¹y; covariance D⁻¹VΣ⁻²VᵀD⁻¹
@@ -59,8 +60,13 @@ const DEGENERACY_COMPONENT_FRACTION = 0.25;
  *           §2.6). A rank-deficient problem throws TimingInputError naming the
  *           parameters with the largest components of the null singular vectors;
  *           a returned solution therefore always has rank = p.
- *        5. χ² = Σ_{i ≥ p} (Qᵀb̃)_i², summed with Neumaier compensation; exact in
- *           exact arithmetic and free of the cancellation of ‖b̃‖² − ‖Qᵀb̃‖².
+ *        5. χ² = the sum of squares of the components of Qᵀb̃ beyond the first p
+ *           (householder-qr.ts: residualComponents), summed with Neumaier
+ *           compensation; exact in exact arithmetic and free of the
+ *           cancellation of ‖b̃‖² − ‖(Qᵀb̃)_{0..p−1}‖².
+ *        6. Covariance entries are products of two parameters' units; for a
+ *           parameter whose natural size is beyond ~1e±154 they can under- or
+ *           overflow even though the uncertainties (computed separately) do not.
  * Throws: TimingInputError for an all-zero column ("parameter has no effect on
  *   the residuals: <name>"), degenerate columns, non-finite data, σ ≤ 0 or n < p;
  *   RangeError for array lengths that do not match n and p.
@@ -82,12 +88,13 @@ export function solveWeightedLeastSquares(
   const name = (j: number): string => parameterNames?.[j] ?? `parameter ${j}`;
   if (n < p) throw new TimingInputError(`fewer data (${n}) than parameters (${p}): the fit is underdetermined`);
   const weights = rowWeights(sigmas, rhs);
-  const { scaled, columnNorms } = weightedScaledDesign(design, n, p, weights, name);
+  const { weighted, powerOfTwoScales } = weightedDesign(design, n, p, weights, name);
   const weightedRhs = new Float64Array(n);
   for (let i = 0; i < n; i++) weightedRhs[i] = rhs[i] * weights[i];
 
-  const qr = householderQr(scaled, n, p, weightedRhs);
-  const svd = new SingularValueDecomposition(new Matrix(rowsOf(qr.r, p)));
+  const qr = householderQr(weighted, n, p, weightedRhs);
+  const { scaledR, columnNorms } = equilibratedR(qr.r, p, powerOfTwoScales);
+  const svd = new SingularValueDecomposition(new Matrix(rowsOf(scaledR, p)));
   const singularValues = Float64Array.from(svd.diagonal);
   const u = svd.leftSingularVectors;
   const v = svd.rightSingularVectors;
@@ -118,10 +125,16 @@ export function solveWeightedLeastSquares(
     }
   }
   const uncertainties = new Float64Array(p);
-  for (let j = 0; j < p; j++) uncertainties[j] = Math.sqrt(covariance[j * p + j]);
+  for (let j = 0; j < p; j++) {
+    // sqrt(C_jj) formed before unscaling, so it survives where C_jj itself would under/overflow (Note 6).
+    let scaledVariance = 0;
+    for (let k = 0; k < p; k++) scaledVariance += (v.get(j, k) / singularValues[k]) ** 2;
+    uncertainties[j] = Math.sqrt(scaledVariance) / columnNorms[j];
+  }
 
   const chi2 = new NeumaierSum();
-  for (let i = p; i < n; i++) chi2.add(qtb[i] * qtb[i]); // Note 5
+  const tail = qr.residualComponents!;
+  for (let i = 0; i < n; i++) chi2.add(tail[i] * tail[i]); // Note 5
   return {
     solution,
     covariance,
@@ -165,48 +178,41 @@ function rowWeights(sigmas: Float64Array, rhs: Float64Array): Float64Array {
 }
 
 /**
- * Â = W^½ A D⁻¹ with D = diag(column 2-norms of W^½A) (Notes 1–2). The norms are
- * taken as max·‖column/max‖ so that entries near 1e±154 neither overflow nor
- * underflow when squared.
+ * W^½A (Note 1), with a column multiplied by an exact power of two when its
+ * largest entry lies outside [2⁻⁵⁰⁰, 2⁵⁰⁰], so the QR's sums of squares can
+ * neither overflow nor underflow. Checks for non-finite and all-zero columns.
  */
-function weightedScaledDesign(
+function weightedDesign(
   design: Float64Array,
   n: number,
   p: number,
   weights: Float64Array,
   name: (j: number) => string,
-): { scaled: Float64Array; columnNorms: Float64Array } {
-  const scaled = new Float64Array(n * p);
-  const columnNorms = new Float64Array(p);
+): { weighted: Float64Array; powerOfTwoScales: Float64Array } {
+  const weighted = new Float64Array(n * p);
+  const powerOfTwoScales = new Float64Array(p).fill(1);
   const zeroColumns: number[] = [];
   for (let j = 0; j < p; j++) {
     const o = j * n;
     let maxAbs = 0;
+    let finiteCheck = 0;
     for (let i = 0; i < n; i++) {
       const x = design[o + i] * weights[i];
-      if (!Number.isFinite(x)) {
-        throw new TimingInputError(`design column ${name(j)}, row ${i}: must be finite, got ${design[o + i]}`, [
-          { row: i, column: name(j), message: 'non-finite derivative' },
-        ]);
-      }
-      scaled[o + i] = x;
+      weighted[o + i] = x;
+      finiteCheck += x * 0; // stays 0 unless some x is ±∞ or NaN
       const ax = Math.abs(x);
       if (ax > maxAbs) maxAbs = ax;
     }
+    if (finiteCheck !== 0) throwNonFinite(design, weighted, o, n, j, name);
     if (maxAbs === 0) {
       zeroColumns.push(j);
       continue;
     }
-    const inverseMax = 1 / maxAbs;
-    let sumSquares = 0;
-    for (let i = 0; i < n; i++) {
-      const y = scaled[o + i] * inverseMax;
-      sumSquares += y * y;
+    if (maxAbs > 2 ** 500 || maxAbs < 2 ** -500) {
+      const scale = 2 ** -Math.round(Math.log2(maxAbs)); // exact: no rounding is introduced
+      powerOfTwoScales[j] = scale;
+      for (let i = 0; i < n; i++) weighted[o + i] *= scale;
     }
-    const norm = maxAbs * Math.sqrt(sumSquares);
-    columnNorms[j] = norm;
-    const inverseNorm = 1 / norm;
-    for (let i = 0; i < n; i++) scaled[o + i] *= inverseNorm;
   }
   if (zeroColumns.length > 0) {
     const names = zeroColumns.map(name);
@@ -215,7 +221,47 @@ function weightedScaledDesign(
       names.map((column) => ({ column, message: 'design column is identically zero' })),
     );
   }
-  return { scaled, columnNorms };
+  return { weighted, powerOfTwoScales };
+}
+
+function throwNonFinite(
+  design: Float64Array,
+  weighted: Float64Array,
+  offset: number,
+  n: number,
+  j: number,
+  name: (j: number) => string,
+): never {
+  let row = 0;
+  while (row < n - 1 && Number.isFinite(weighted[offset + row])) row++;
+  throw new TimingInputError(`design column ${name(j)}, row ${row}: must be finite, got ${design[offset + row]}`, [
+    { row, column: name(j), message: 'non-finite derivative' },
+  ]);
+}
+
+/**
+ * R·D⁻¹ with D = diag(‖column j of W^½A‖), the column norms being read off R
+ * (Q is orthogonal, so ‖A_j‖ = ‖R_j‖). Scaling R's columns after the QR equals
+ * a QR of the scaled matrix, because Householder QR's backward error is
+ * column-wise (Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed.
+ * 2002, Thm 19.4), so Note 2's equilibration costs no pass over the n rows.
+ * Returned norms are in the caller's units (the power-of-two scales undone).
+ */
+function equilibratedR(
+  r: Float64Array,
+  p: number,
+  powerOfTwoScales: Float64Array,
+): { scaledR: Float64Array; columnNorms: Float64Array } {
+  const scaledR = new Float64Array(p * p);
+  const columnNorms = new Float64Array(p);
+  for (let j = 0; j < p; j++) {
+    let sumSquares = 0;
+    for (let i = 0; i <= j; i++) sumSquares += r[i * p + j] * r[i * p + j];
+    const norm = Math.sqrt(sumSquares);
+    for (let i = 0; i <= j; i++) scaledR[i * p + j] = r[i * p + j] / norm;
+    columnNorms[j] = norm / powerOfTwoScales[j];
+  }
+  return { scaledR, columnNorms };
 }
 
 /** Row-major p×p Float64Array → array of rows for ml-matrix. */
