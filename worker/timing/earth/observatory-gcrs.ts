@@ -19,7 +19,7 @@
  *    W = R3(s′), which is kept: |s′| < 0.1 mas for centuries around 2000).
  * 3. Velocity = C2Iᵀ · (ω ẑ × R3(−θ) · Wᵀ · r_ITRS), ω the rate of θ
  *    (2π·1.00273781191135448 rad per UT1 day). Neglected: the rates of
- *    precession–nutation and polar motion (< 1e-6 m/s) and the UT1/TT rate
+ *    precession–nutation and polar motion (≲ 1e-4 m/s, v/c ~ 3e-13) and the UT1/TT rate
  *    difference (LOD excess, ~1e-8 relative).
  * Accuracy: as ERFA's IAU 2006/2000A model (~1 mas ≈ 3 cm at the surface for
  *   the nutation model's own error) once UT1 and polar motion are supplied;
