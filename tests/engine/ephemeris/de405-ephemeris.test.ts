@@ -91,6 +91,13 @@ describe('DE405 ephemeris', () => {
     expect(() => ephemeris.state('sun', mjdFromParts(73487, 0.999))).not.toThrow();
   });
 
+  // Source: IAU 2012 Resolution B2 (au = 149 597 870 700 m exactly) and c = 299 792 458 m/s (SI): 499.004784 s.
+  it('light time for one au is 499.004784 s; DE405’s own au (9 m shorter) differs by only 3e-8 s', () => {
+    expectWithin(149_597_870_700 / 299_792_458, 499.004784, 5e-7, 'IAU 2012 au light time (s)');
+    expect(ephemeris.constants.CLIGHT).toBe(299_792.458);
+    expectWithin(ephemeris.constants.AU / ephemeris.constants.CLIGHT, 149_597_870_700 / 299_792_458, 4e-8, 'DE405 au light time (s)');
+  });
+
   it('is loaded once and then served from memory', () => {
     expect(loadDe405()).toBe(ephemeris);
   });

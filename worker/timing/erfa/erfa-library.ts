@@ -49,14 +49,22 @@ let loaded: ErfaLibrary | undefined;
  * Throws Error("liberfa1 not installed: apt-get install liberfa1") when the library is missing.
  */
 export function erfaLibrary(): ErfaLibrary {
-  if (loaded !== undefined) return loaded;
+  loaded ??= bindErfaLibrary(LIBERFA_PATH);
+  return loaded;
+}
+
+/**
+ * Loads liberfa from `path` and binds the routines (erfaLibrary() calls this once
+ * with the Debian path; exported for the missing-library test).
+ */
+export function bindErfaLibrary(path: string): ErfaLibrary {
   let lib: ReturnType<typeof koffi.load>;
   try {
-    lib = koffi.load(LIBERFA_PATH);
+    lib = koffi.load(path);
   } catch (cause) {
-    throw new Error(`liberfa1 not installed: apt-get install liberfa1 (could not load ${LIBERFA_PATH})`, { cause });
+    throw new Error(`liberfa1 not installed: apt-get install liberfa1 (could not load ${path})`, { cause });
   }
-  loaded = {
+  return {
     eraDat: lib.func('int eraDat(int iy, int im, int id, double fd, _Out_ double *deltat)'),
     eraDtdb: lib.func('double eraDtdb(double date1, double date2, double ut, double elong, double u, double v)'),
     eraC2i06a: lib.func('void eraC2i06a(double date1, double date2, _Out_ double *rc2i)'),
@@ -69,5 +77,4 @@ export function erfaLibrary(): ErfaLibrary {
     eraCal2jd: lib.func('int eraCal2jd(int iy, int im, int id, _Out_ double *djm0, _Out_ double *djm)'),
     eraJd2cal: lib.func('int eraJd2cal(double dj1, double dj2, _Out_ int *iy, _Out_ int *im, _Out_ int *id, _Out_ double *fd)'),
   } as ErfaLibrary;
-  return loaded;
 }
