@@ -3,7 +3,7 @@
  * compensated (worker/timing/fit/neumaier-sum.ts).
  *
  * Definitions are the standard ones (common practice; e.g. Bevington &
- * Robinson, Data Reduction and Error Analysis, 3rd ed. 2003, §4.1 and §11.1).
+ * Robinson, Data Reduction and Error Analysis, 3rd ed. 2003, Ch. 4 (weighted mean) and Ch. 11 (χ²)).
  */
 import { NeumaierSum } from './neumaier-sum';
 

@@ -84,7 +84,8 @@ const CONDITION_WARNING_LEVEL = 1e10;
  * Notes: 1. Each iteration evaluates the residuals r and design A at the current
  *           values, solves A·Δ ≈ −r with weights 1/σ² (module header;
  *           worker/timing/fit/weighted-least-squares.ts), and adds the float64
- *           step to each double-double value (ddAddDouble), so a 716 Hz spin
+ *           step to each double-double value (double-double's ddAddDouble,
+ *           through ddAddNumber of time/double-double-typed.ts), so a 716 Hz spin
  *           frequency keeps its ~30 digits while the step carries only its own.
  *        2. Convergence rule: the fit has converged when, at the current values,
  *           every |Δ_j| < 1e-3·σ_j (σ_j the formal uncertainty), or when a full
@@ -106,7 +107,7 @@ const CONDITION_WARNING_LEVEL = 1e10;
  * Throws: TimingInputError for degenerate or zero-effect parameters (from the
  *   linear solver), non-finite initial χ² or inconsistent array sizes.
  * References: Nocedal & Wright 2006, §10.3 (Gauss–Newton); Björck, Numerical
- *   Methods for Least Squares Problems (1996), §9.2.
+ *   Methods for Least Squares Problems (1996), Ch. 9.
  */
 export function fitGaussNewton(problem: FitProblem): FitOutcome {
   const names = problem.parameterNames;

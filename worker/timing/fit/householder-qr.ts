@@ -10,11 +10,13 @@
  * running p×p factor R is stacked on each new chunk, [R; A_c], and that
  * (p + m)×p matrix is reduced by p Householder reflections back to [R'; 0]
  * (sequential "tall-skinny" QR: Demmel, Grigori, Hoemmen & Langou 2012, SIAM J.
- * Sci. Comput. 34, A206; QR updating by rows: Golub & Van Loan §6.5.3). The
- * flop count equals that of one unblocked sweep, but each chunk (~60 kB) stays
+ * Sci. Comput. 34, A206; appending rows to a QR factorisation: Golub & Van
+ * Loan §6.5). The flop count equals that of one unblocked sweep, but each chunk (~60 kB) stays
  * in cache for all p columns, where an unblocked sweep streams the whole 24 MB
- * matrix through memory p times. Both were measured; on this shared 2-core
- * machine the chunked form was ~1.3× faster and much less sensitive to load.
+ * matrix through memory p times. Both were measured in interleaved runs on
+ * this shared, loaded 2-core machine: the chunked form was faster on average
+ * (about 1.3×; single pairs ranged from 0.8× to 2.3×), and it leans less on
+ * memory bandwidth that other processes compete for.
  *
  * Storage after the call: `r` holds R (row-major p×p). Below the R rows, the
  * chunk's part of each Householder vector overwrites column k of `a` in that
@@ -22,9 +24,9 @@
  * components are zero because R is triangular), and `tau[c·p + k]` is its
  * coefficient: H = I − τ v vᵀ. `thinQ` rebuilds Q from these for checks.
  *
- * References: Golub & Van Loan, Matrix Computations (4th ed., 2013), §5.1.2–5.1.3
- * (Algorithm 5.1.1, the Householder vector), §5.2.2 (Algorithm 5.2.1,
- * Householder QR), §6.5.3 (appending rows).
+ * References: Golub & Van Loan, Matrix Computations (4th ed., 2013), §5.1
+ * (Householder reflections; Algorithm 5.1.1, the Householder vector), §5.2
+ * (Algorithm 5.2.1, Householder QR), §6.5 (updating: appending rows).
  */
 
 /** Rows per chunk: 256 rows × 30 columns × 8 B ≈ 60 kB stays in L2 (Note 3 of householderQr). */
@@ -63,13 +65,14 @@ export interface HouseholderQr {
  * Notes: 1. In place so that a 100 000 × 30 problem needs no second 24 MB array;
  *           pass a copy if the original is still needed.
  *        2. The reflector sign is chosen as −sign(α) so that α − β never cancels
- *           (Golub & Van Loan §5.1.3); R's diagonal may therefore be negative.
+ *           (Golub & Van Loan §5.1); R's diagonal may therefore be negative.
  *        3. Chunking changes the order of operations, not the algorithm: the
  *           result is a Householder QR with the same backward stability.
  *        4. No overflow protection inside: entries of `a` must stay below ~1e150
  *           in magnitude (weighted-least-squares.ts pre-scales by powers of two).
  * Cost: 2np² flops (+ p³ per chunk). Accuracy: backward stable, ‖A − QR‖ ≈ ε‖A‖
- *   column by column (Golub & Van Loan §5.2.2; Higham 2002, §19.3).
+ *   column by column (Golub & Van Loan §5.2; Higham, Accuracy and Stability of
+ *   Numerical Algorithms, 2nd ed. 2002, Ch. 19).
  */
 export function householderQr(a: Float64Array, n: number, p: number, rhs?: Float64Array): HouseholderQr {
   if (!(Number.isInteger(n) && Number.isInteger(p) && p >= 1 && n >= p)) {
@@ -108,10 +111,10 @@ function makeReflector(a: Float64Array, n: number, k: number, first: number, end
   const alpha = top[topIndex];
   const norm = Math.sqrt(alpha * alpha + tailSquares);
   const beta = alpha >= 0 ? -norm : norm;
-  const scale = 1 / (alpha - beta); // v = x − βe_k, normalised to v_k = 1: Golub & Van Loan §5.1.3
+  const scale = 1 / (alpha - beta); // v = x − βe_k, normalised to v_k = 1: Golub & Van Loan §5.1
   for (let i = first; i < end; i++) a[ok + i] *= scale;
   top[topIndex] = beta;
-  return (beta - alpha) / beta; // τ = 2/(vᵀv) for that normalisation: Golub & Van Loan §5.1.3
+  return (beta - alpha) / beta; // τ = 2/(vᵀv) for that normalisation: Golub & Van Loan §5.1
 }
 
 /**
@@ -148,7 +151,7 @@ function applyReflector(
  * forms Q. Chunk c's stacked step is [R_{c−1}; A_c] = Q_c [R_c; 0], so the rows
  * of chunk c in Q are B_c·M with M = T_{c+1}⋯T_last, where T_c and B_c are the
  * top p and bottom rows of Q_c's first p columns; M is carried from the last
- * chunk backwards (backward accumulation, Golub & Van Loan §5.1.6).
+ * chunk backwards (backward accumulation of the factored form, Golub & Van Loan §5.1).
  */
 export function thinQ(qr: HouseholderQr): Float64Array {
   const { n, p, chunkRows, factored, tau } = qr;

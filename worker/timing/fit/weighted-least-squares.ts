@@ -43,20 +43,20 @@ const DEGENERACY_COMPONENT_FRACTION = 0.25;
  * @returns               the solution with covariance and conditioning diagnostics
  *
  * Notes: 1. Rows are divided by σ_i, so the problem becomes ordinary least
- *           squares on Ã = W^½A, b̃ = W^½ rhs (Golub & Van Loan 2013, §6.1.5).
+ *           squares on Ã = W^½A, b̃ = W^½ rhs (Golub & Van Loan 2013, §6.1, row weighting).
  *        2. Each column of Ã is scaled to unit 2-norm (Ã = Â·D; applied to R after
  *           the QR, see equilibratedR). Column
  *           equilibration removes the conditioning that comes only from units
  *           (seconds per Hz against seconds per radian), so the singular values
  *           and the rank test describe real degeneracy (van der Sluis 1969,
- *           Numer. Math. 14, 14; Golub & Van Loan §3.5.2).
+ *           Numer. Math. 14, 14; Golub & Van Loan §3.5, scaling).
  *        3. Householder QR reduces Ã to the p×p factor R and Qᵀb̃
  *           (worker/timing/fit/householder-qr.ts); ml-matrix's SVD of R = UΣVᵀ
  *           then gives the singular values of Â, and the solution
  *           y = VΣ⁻¹Uᵀ(Qᵀb̃)_{0..p−1}, x = D⁻¹y; covariance D⁻¹VΣ⁻²VᵀD⁻¹
- *           (Golub & Van Loan §5.3.3 and §5.5.4).
+ *           (Golub & Van Loan §5.3 and §5.5: the SVD solution of least squares).
  *        4. Rank tolerance: σ_i ≤ max(n, p)·ε·σ_max (the usual default, e.g.
- *           Golub & Van Loan §5.4.1 and Press et al., Numerical Recipes 3rd ed.,
+ *           Golub & Van Loan §5.4 and §5.5, and Press et al., Numerical Recipes 3rd ed.,
  *           §2.6). A rank-deficient problem throws TimingInputError naming the
  *           parameters with the largest components of the null singular vectors;
  *           a returned solution therefore always has rank = p.
@@ -108,7 +108,7 @@ export function solveWeightedLeastSquares(
   for (let k = 0; k < p; k++) {
     let ukb = 0;
     for (let i = 0; i < p; i++) ukb += u.get(i, k) * qtb[i];
-    const coefficient = ukb / singularValues[k]; // y = Σ_k v_k (u_kᵀ c)/σ_k: Golub & Van Loan §5.5.4
+    const coefficient = ukb / singularValues[k]; // y = Σ_k v_k (u_kᵀ c)/σ_k: Golub & Van Loan §5.5
     for (let j = 0; j < p; j++) scaledSolution[j] += v.get(j, k) * coefficient;
   }
   const solution = new Float64Array(p);
@@ -244,7 +244,7 @@ function throwNonFinite(
  * (Q is orthogonal, so ‖A_j‖ = ‖R_j‖). Scaling R's columns after the QR equals
  * a QR of the scaled matrix, because Householder QR's backward error is
  * column-wise (Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed.
- * 2002, Thm 19.4), so Note 2's equilibration costs no pass over the n rows.
+ * 2002, Ch. 19), so Note 2's equilibration costs no pass over the n rows.
  * Returned norms are in the caller's units (the power-of-two scales undone).
  */
 function equilibratedR(
