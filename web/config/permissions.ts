@@ -1,7 +1,6 @@
-// Role and permission names as the API uses them; the one table is api/auth/permissions.ts.
-import { ROLES, type Role } from '../../api/auth/permissions';
-
-export { ROLES, type Role };
+// Role and permission names as the API uses them (docs/api.md; the server's one table lives in api/auth/).
+export const ROLES = ['viewer', 'observer', 'analyst', 'lead', 'admin'] as const; // lowest to highest
+export type Role = (typeof ROLES)[number];
 
 export const PERMISSIONS = {
   manageUsers: 'users:manage',

@@ -1,17 +1,17 @@
 import { z } from 'zod';
-import {
-  MAX_GEOCENTRIC_RADIUS_KM,
-  MIN_GEOCENTRIC_RADIUS_KM,
-  ObservatoryCode,
-  observatoryProblems,
-  splitMjdText,
-} from '../../../api/contracts/observatory';
 
-// The client applies the API's own observatory rules (api/contracts/observatory.ts) before sending:
-// code pattern, a point 6350–6400 km from the geocentre, clock points in increasing MJD.
-export const MIN_GEOCENTRIC_DISTANCE_KM = MIN_GEOCENTRIC_RADIUS_KM;
-export const MAX_GEOCENTRIC_DISTANCE_KM = MAX_GEOCENTRIC_RADIUS_KM;
+// Client-side checks for an observatory, the same rules the API applies to POST/PATCH
+// /api/observatories (docs/api.md, FORMATS.md §3): code 2–16 of a-z 0-9 - _ and not reserved,
+// a point 6350–6400 km from the geocentre, clock points in strictly increasing MJD.
+export const MIN_GEOCENTRIC_DISTANCE_KM = 6350;
+export const MAX_GEOCENTRIC_DISTANCE_KM = 6400;
 const METRES_PER_KM = 1000;
+
+export const OBSERVATORY_CODE_PATTERN = /^[a-z0-9_-]{2,16}$/;
+export const RESERVED_OBSERVATORY_CODES: ReadonlySet<string> = new Set(['ssb', 'geocenter']);
+
+// A plain non-negative decimal MJD; the API keeps up to 28 fractional digits.
+const MJD_TEXT = /^(\d{1,7})(?:\.(\d{1,28}))?$/;
 
 /** Distance of an ITRF point (metres) from the geocentre, in km: the Euclidean norm √(x²+y²+z²). */
 export function geocentricDistanceKm(xM: number, yM: number, zM: number): number {
@@ -28,14 +28,24 @@ export function geocentricDistanceProblem(xM: number, yM: number, zM: number): s
   );
 }
 
+/**
+ * Orders two decimal MJD strings exactly (integer day first, then the fraction's digits),
+ * never through a float. Both must match the MJD text pattern. Returns <0, 0 or >0.
+ */
+export function compareMjdText(a: string, b: string): number {
+  const [, dayA, fracA = ''] = MJD_TEXT.exec(a.trim()) ?? [];
+  const [, dayB, fracB = ''] = MJD_TEXT.exec(b.trim()) ?? [];
+  if (Number(dayA) !== Number(dayB)) return Number(dayA) - Number(dayB);
+  const width = Math.max(fracA.length, fracB.length);
+  const [fa, fb] = [fracA.padEnd(width, '0'), fracB.padEnd(width, '0')];
+  return fa < fb ? -1 : fa > fb ? 1 : 0;
+}
+
 const metres = (axis: string) => z.number({ error: `ITRF ${axis}: enter a number of metres` });
 
 // The MJD stays text from input to request body, so no digit passes through a float.
 export const ClockCorrectionPoint = z.object({
-  mjd: z
-    .string()
-    .trim()
-    .refine((v) => splitMjdText(v) !== null, 'MJD: a non-negative decimal such as 60000.5'),
+  mjd: z.string().trim().regex(MJD_TEXT, 'MJD: a non-negative decimal such as 60000.5'),
   correction_us: z.number({ error: 'Correction: enter a number of microseconds' }),
 });
 
@@ -44,24 +54,20 @@ export const ObservatoryFormValues = z
     code: z
       .string()
       .trim()
-      .refine((c) => ObservatoryCode.safeParse(c).success, 'Code: 2–16 characters of a–z, 0–9, - or _ (not "ssb" or "geocenter")'),
+      .regex(OBSERVATORY_CODE_PATTERN, 'Code: 2–16 characters of a–z, 0–9, - or _')
+      .refine((c) => !RESERVED_OBSERVATORY_CODES.has(c), 'Code: "ssb" and "geocenter" are reserved'),
     name: z.string().trim().min(1, 'Name: enter the observatory name').max(200, 'Name: use at most 200 characters'),
     itrf_x_m: metres('x'),
     itrf_y_m: metres('y'),
     itrf_z_m: metres('z'),
     clock_corrections: z.array(ClockCorrectionPoint),
   })
-  .superRefine((values, ctx) => {
-    const points = values.clock_corrections.map((p) => ({ mjd: splitMjdText(p.mjd), correction_us: p.correction_us }));
-    if (points.some((p) => p.mjd === null)) return; // the per-point check already reported it
-    const ordering = observatoryProblems({
-      itrf_x_m: values.itrf_x_m,
-      itrf_y_m: values.itrf_y_m,
-      itrf_z_m: values.itrf_z_m,
-      clock_corrections: points.map((p) => ({ mjd: p.mjd!, correction_us: p.correction_us })),
-    }).filter((p) => p.path[0] === 'clock_corrections');
-    for (const problem of ordering) {
-      ctx.addIssue({ code: 'custom', path: problem.path, message: 'MJD: must be later than the point above' });
+  .superRefine(({ clock_corrections: points }, ctx) => {
+    if (points.some((p) => !MJD_TEXT.test(p.mjd.trim()))) return; // the per-point check reports those
+    for (let i = 1; i < points.length; i++) {
+      if (compareMjdText(points[i - 1].mjd, points[i].mjd) >= 0) {
+        ctx.addIssue({ code: 'custom', path: ['clock_corrections', i, 'mjd'], message: 'MJD: must be later than the point above' });
+      }
     }
   });
 export type ObservatoryFormValues = z.infer<typeof ObservatoryFormValues>;
