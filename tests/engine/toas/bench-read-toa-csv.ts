@@ -18,8 +18,11 @@ const megabytes = bytes.length / 1e6;
 const known = new Set(['harrow-ridge']);
 for (const [label, input] of [['bytes', bytes], ['string', text]] as const) {
   const started = performance.now();
+  const cpuStarted = process.cpuUsage();
   const result = readToaCsv(input, { knownObservatories: known });
   const seconds = (performance.now() - started) / 1000;
+  const cpu = process.cpuUsage(cpuStarted);
+  const cpuSeconds = (cpu.user + cpu.system) / 1e6; // CPU time: steadier than wall time on a shared machine
   if (!result.ok) throw new Error(`bench file rejected: ${result.errors[0].message}`);
-  console.log(`${label}: ${result.toas.length} rows, ${megabytes.toFixed(1)} MB in ${seconds.toFixed(2)} s (${(megabytes / seconds).toFixed(1)} MB/s)`);
+  console.log(`${label}: ${result.toas.length} rows, ${megabytes.toFixed(1)} MB in ${seconds.toFixed(2)} s wall, ${cpuSeconds.toFixed(2)} s CPU (${(megabytes / seconds).toFixed(1)} MB/s wall)`);
 }

@@ -98,7 +98,7 @@ function splitQuotedCsvLine(line: string): SplitLine {
     let start = i;
     while (start < line.length && (line[start] === ' ' || line[start] === '\t')) start += 1;
     if (line[start] === '"') {
-      const parts: string[] = [];
+      let value = '';
       let j = start + 1;
       let close: number;
       for (;;) {
@@ -106,13 +106,11 @@ function splitQuotedCsvLine(line: string): SplitLine {
         if (close === -1) {
           return { ok: false, message: `field ${fields.length + 1}: the quoted field is not closed on this line (line breaks inside fields are not supported)` };
         }
-        parts.push(line.slice(j, close));
-        if (line[close + 1] === '"') {
-          parts.push('"');
-          j = close + 2;
-        } else break;
+        if (line[close + 1] !== '"') break;
+        value += line.slice(j, close + 1); // a doubled quote stands for one quote
+        j = close + 2;
       }
-      fields.push(parts.join(''));
+      fields.push(value === '' ? line.slice(j, close) : value + line.slice(j, close));
       let after = close + 1;
       while (after < line.length && (line[after] === ' ' || line[after] === '\t')) after += 1;
       if (after === line.length) return { ok: true, fields };
