@@ -10,7 +10,7 @@ const MAX_ITERATIONS = 60;
  * Eccentric anomaly from mean anomaly and eccentricity.
  *
  * @param meanAnomalyRad  M, any real value (radians)
- * @param eccentricity    e, 0 ≤ e < 1
+ * @param eccentricity    e, 0 ≤ e < 1 (Note 4: −1 < e < 0 is accepted too)
  * @returns               E in the same revolution as M (E − M = e·sin E, so |E − M| ≤ e)
  *
  * Notes: 1. M is reduced to [−π, π) first, and the revolution count added back at the end.
@@ -18,13 +18,16 @@ const MAX_ITERATIONS = 60;
  *           e < 1 (Danby 1988, Fundamentals of Celestial Mechanics, 2nd ed., §6.6).
  *        3. Halley's third-order step (Newton with the curvature term), stopping when a step is
  *           below 1e-15 rad; a final Newton step polishes the last bit.
+ *        4. A slightly negative e has no physical meaning but the equation stays well posed
+ *           (E + |e| sin E = M is monotonic); it is accepted so that numeric derivatives can
+ *           straddle e = 0.
  * Accuracy: |E − e sin E − M| ≲ 1e-15 rad for e up to 0.99 (tests/engine/orbits/kepler-equation.test.ts).
- * Throws RangeError when e is outside [0, 1) or M is not finite.
+ * Throws RangeError when e is outside (−1, 1) or M is not finite.
  * References: Danby 1988, §6.6; Meeus 1998, Astronomical Algorithms, 2nd ed., ch. 30.
  */
 export function solveKepler(meanAnomalyRad: number, eccentricity: number): number {
-  if (!(eccentricity >= 0 && eccentricity < 1)) {
-    throw new RangeError(`solveKepler: eccentricity ${eccentricity} must be in [0, 1)`);
+  if (!(eccentricity > -1 && eccentricity < 1)) {
+    throw new RangeError(`solveKepler: eccentricity ${eccentricity} must be in [0, 1) (or slightly negative: Note 4)`);
   }
   if (!Number.isFinite(meanAnomalyRad)) {
     throw new RangeError(`solveKepler: meanAnomalyRad ${meanAnomalyRad} must be finite`);
