@@ -7,6 +7,7 @@
  *
  * Run: npx tsx -e "import('./scripts/bench/fit.ts').then(m=>m.bench())"
  */
+import { cpus, loadavg } from 'node:os';
 import { Matrix, QrDecomposition } from 'ml-matrix';
 import { householderQr } from '../../worker/timing/fit/householder-qr';
 import { solveWeightedLeastSquares } from '../../worker/timing/fit/weighted-least-squares';
@@ -50,6 +51,7 @@ function syntheticProblem() {
 
 export async function bench(): Promise<void> {
   const { design, sigmasS, rhs } = syntheticProblem();
+  console.log(`(1-minute load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores: figures grow with load)`);
 
   const qrS = timeMedianS(() => {
     householderQr(design.slice(), N, P, rhs.slice());
