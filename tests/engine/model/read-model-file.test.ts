@@ -114,6 +114,13 @@ describe('readModelFile: bad input, each problem with its path', () => {
       { path: 'companions[0].kind', message: 'unknown kind the string "circular"; one of "keplerian", "low-eccentricity", "damour-deruelle"' },
     ]);
   });
+  it('rejects a companion without a kind', () => {
+    const file = example();
+    delete file.companions[0].kind;
+    expect(inputError(() => readModelFile(file)).details).toEqual([
+      { path: 'companions[0].kind', message: 'required key is missing; one of "keplerian", "low-eccentricity", "damour-deruelle"' },
+    ]);
+  });
   it('rejects duplicate companion names, naming both entries', () => {
     const file = example();
     file.companions.push({ ...file.companions[0] });
