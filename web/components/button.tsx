@@ -26,7 +26,7 @@ export function Button({ variant = 'primary', size = 'md', busy = false, classNa
       type={type ?? 'button'}
       className={cn(
         'inline-flex items-center justify-center gap-2 rounded-md font-medium transition-colors',
-        'disabled:cursor-not-allowed focus-ring',
+        'disabled:cursor-not-allowed disabled:opacity-60 focus-ring',
         variantClasses[variant],
         sizeClasses[size],
         className,

@@ -13,7 +13,10 @@ function UserRow({ user, isSelf }: { user: User; isSelf: boolean }) {
   return (
     <Tr className={cn(!user.active && 'opacity-60')}>
       <Td className="font-mono text-xs">{user.email}</Td>
-      <Td>{user.displayName}</Td>
+      <Td>
+        {user.displayName}
+        {isSelf ? <span className="ml-2 text-xs text-night-400">(you)</span> : null}
+      </Td>
       <Td>
         <label htmlFor={selectId} className="sr-only">
           Role of {user.email}
