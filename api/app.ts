@@ -4,7 +4,6 @@
  * session (MariaDB) → CSRF → current user → routes (each behind its access
  * check, see routes/route-table.ts) → 404 → the one error handler.
  */
-import { ConnectSessionKnexStore } from 'connect-session-knex';
 import express, { type Application } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -13,6 +12,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { AppDeps, MailDeps } from './app-deps';
 import { loadCurrentUser } from './auth/current-user';
+import { SessionStore } from './auth/session-store';
 import { createCsrf } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { createRateLimits, DEFAULT_RATE_LIMITS } from './middleware/rate-limits';
@@ -69,8 +69,7 @@ export function createApp(deps: AppDeps): Application {
   if (config.api.behindTls) app.set('trust proxy', 1); // the reverse proxy's X-Forwarded-* (client IP, https)
   app.use(securityHeaders(config.api.behindTls));
 
-  const store = new ConnectSessionKnexStore({ knex, tableName: 'sessions', createTable: false, cleanupInterval: SESSION_CLEANUP_INTERVAL_MS });
-  store.ready.catch((err: unknown) => log('session store not ready', err)); // get/set report it again per request
+  const store = new SessionStore({ knex, cleanupIntervalMs: SESSION_CLEANUP_INTERVAL_MS, onError: (err) => log('session store', err) });
   app.locals.sessionStore = store;
 
   app.use('/api', (_req, res, next) => {
@@ -123,6 +122,5 @@ export function createApp(deps: AppDeps): Application {
 
 /** Stops the session store's cleanup timer (call before destroying knex). */
 export function closeApp(app: Application): void {
-  const store = app.locals.sessionStore as ConnectSessionKnexStore | undefined;
-  if (store) clearTimeout(store.nextDbCleanup);
+  (app.locals.sessionStore as SessionStore | undefined)?.stopCleanup();
 }
