@@ -106,6 +106,13 @@ export class ObservatoryGcrsEvaluator {
    * @param polar   polar motion, radians; omitted = none (Note 2)
    */
   state(itrfM: readonly [number, number, number], tt: Mjd, ut1: Mjd, polar?: PolarMotion): GcrsState {
+    const out = new Float64Array(6);
+    this.stateInto(itrfM, tt, ut1, polar, out);
+    return { positionM: [out[0], out[1], out[2]], velocityMPerS: [out[3], out[4], out[5]] };
+  }
+
+  /** As `state`, written to out[0..2] (position, m) and out[3..5] (velocity, m/s) without allocating. */
+  stateInto(itrfM: readonly [number, number, number], tt: Mjd, ut1: Mjd, polar: PolarMotion | undefined, out: Float64Array): void {
     const c = this.c2i;
     this.c2iGrid.evaluate(tt, c);
     const sp = tioLocatorRad(tt);
@@ -132,10 +139,12 @@ export class ObservatoryGcrsEvaluator {
     const qz = wz;
     const vx = -EARTH_ROTATION_RATE_RAD_PER_S * qy; // ω ẑ × q (Note 3)
     const vy = EARTH_ROTATION_RATE_RAD_PER_S * qx;
-    return {
-      positionM: [c[0] * qx + c[3] * qy + c[6] * qz, c[1] * qx + c[4] * qy + c[7] * qz, c[2] * qx + c[5] * qy + c[8] * qz],
-      velocityMPerS: [c[0] * vx + c[3] * vy, c[1] * vx + c[4] * vy, c[2] * vx + c[5] * vy],
-    };
+    out[0] = c[0] * qx + c[3] * qy + c[6] * qz; // C2Iᵀ · q
+    out[1] = c[1] * qx + c[4] * qy + c[7] * qz;
+    out[2] = c[2] * qx + c[5] * qy + c[8] * qz;
+    out[3] = c[0] * vx + c[3] * vy; // C2Iᵀ · (ω ẑ × q), Note 3
+    out[4] = c[1] * vx + c[4] * vy;
+    out[5] = c[2] * vx + c[5] * vy;
   }
 }
 

@@ -107,20 +107,23 @@ function buildDe405(directory: string): SolarSystemEphemeris {
   const emb = new Float64Array(6);
   const moon = new Float64Array(6);
   const body = new Float64Array(6);
-  const state = (name: SolarSystemBody, tdb: Mjd): BodyState => {
+  const stateInto = (name: SolarSystemBody, tdb: Mjd, out: Float64Array): void => {
     if (name === 'earth' || name === 'moon') {
       rawState(DE405_BODY_INDEX['earth-moon-barycentre'], tdb, emb);
       rawState(DE405_BODY_INDEX['moon-geocentric'], tdb, moon);
       for (let k = 0; k < 6; k++) {
         const earth = emb[k] - moon[k] / (1 + emrat); // Note 3 (Standish 1998)
-        body[k] = name === 'earth' ? earth : earth + moon[k];
+        out[k] = name === 'earth' ? earth : earth + moon[k];
       }
     } else {
       const index = name === 'earth-moon-barycentre' ? DE405_BODY_INDEX['earth-moon-barycentre'] : DE405_BODY_INDEX[name];
       if (index === undefined) throw new RangeError(`DE405: unknown body "${String(name)}"`);
-      rawState(index, tdb, body);
+      rawState(index, tdb, out);
     }
+  };
+  const state = (name: SolarSystemBody, tdb: Mjd): BodyState => {
+    stateInto(name, tdb, body);
     return { positionKm: [body[0], body[1], body[2]], velocityKmPerS: [body[3], body[4], body[5]] };
   };
-  return { info, constants, state };
+  return { info, constants, state, stateInto };
 }

@@ -31,4 +31,6 @@ export interface SolarSystemEphemeris {
   constants: Readonly<Record<string, number>>;
   /** Barycentric state of `body` at `tdb`; throws RangeError outside [info.firstMjdTdb, info.lastMjdTdb). */
   state(body: SolarSystemBody, tdb: Mjd): BodyState;
+  /** The same state written to out[0..2] (position, km) and out[3..5] (velocity, km/s), without allocating. */
+  stateInto(body: SolarSystemBody, tdb: Mjd, out: Float64Array): void;
 }

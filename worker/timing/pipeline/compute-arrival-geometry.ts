@@ -162,6 +162,10 @@ export function computeArrivalGeometry(
     );
   }
 
+  const earth = new Float64Array(6);
+  const siteState = new Float64Array(6);
+  const sun = new Float64Array(6);
+  const jupiter = new Float64Array(6);
   for (let i = 0; i < count; i++) {
     const code = toas[i].observatory;
     let px = 0;
@@ -171,25 +175,25 @@ export function computeArrivalGeometry(
     let vy = 0;
     let vz = 0;
     if (code !== 'ssb') {
-      const earth = ephemeris.state('earth', tdb[i]);
-      px = earth.positionKm[0];
-      py = earth.positionKm[1];
-      pz = earth.positionKm[2];
-      vx = earth.velocityKmPerS[0];
-      vy = earth.velocityKmPerS[1];
-      vz = earth.velocityKmPerS[2];
+      ephemeris.stateInto('earth', tdb[i], earth);
+      px = earth[0];
+      py = earth[1];
+      pz = earth[2];
+      vx = earth[3];
+      vy = earth[4];
+      vz = earth[5];
       if (code !== 'geocenter') {
-        const site = gcrs.state(sites.get(code)!.itrfM, tt[i], ut1[i], polar[i]); // Note 2: GCRS ≈ BCRS axes
-        px += site.positionM[0] / METRES_PER_KM;
-        py += site.positionM[1] / METRES_PER_KM;
-        pz += site.positionM[2] / METRES_PER_KM;
-        vx += site.velocityMPerS[0] / METRES_PER_KM;
-        vy += site.velocityMPerS[1] / METRES_PER_KM;
-        vz += site.velocityMPerS[2] / METRES_PER_KM;
+        gcrs.stateInto(sites.get(code)!.itrfM, tt[i], ut1[i], polar[i], siteState); // Note 2: GCRS ≈ BCRS axes
+        px += siteState[0] / METRES_PER_KM;
+        py += siteState[1] / METRES_PER_KM;
+        pz += siteState[2] / METRES_PER_KM;
+        vx += siteState[3] / METRES_PER_KM;
+        vy += siteState[4] / METRES_PER_KM;
+        vz += siteState[5] / METRES_PER_KM;
       }
     }
-    const sun = ephemeris.state('sun', tdb[i]).positionKm;
-    const jupiter = ephemeris.state('jupiter', tdb[i]).positionKm;
+    ephemeris.stateInto('sun', tdb[i], sun);
+    ephemeris.stateInto('jupiter', tdb[i], jupiter);
     const k = 3 * i;
     observatoryPositionLs[k] = px / SPEED_OF_LIGHT_KM_PER_S;
     observatoryPositionLs[k + 1] = py / SPEED_OF_LIGHT_KM_PER_S;
