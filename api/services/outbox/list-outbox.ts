@@ -5,7 +5,7 @@ export interface CapturedEmail {
   id: number;
   to: string;
   subject: string;
-  text: string | null;
+  text: string;
   html: string | null;
   receivedAt: string;
 }
@@ -18,7 +18,7 @@ export async function listOutbox(knex: Knex): Promise<CapturedEmail[]> {
     id: r.id,
     to: r.to_addresses,
     subject: r.subject,
-    text: r.text_body,
+    text: r.text_body ?? '',
     html: r.html_body,
     receivedAt: (r.received_at as Date).toISOString(),
   }));
