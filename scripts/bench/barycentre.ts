@@ -5,6 +5,7 @@
  *
  * Run: npx tsx -e "import('./scripts/bench/barycentre.ts').then(m=>m.bench())"
  */
+import { loadavg } from 'node:os';
 import { computeArrivalGeometry } from '../../worker/timing/pipeline/compute-arrival-geometry';
 import { loadDe405 } from '../../worker/timing/ephemeris/de405-ephemeris';
 import type { Observatory } from '../../worker/timing/earth/observatory';
@@ -46,6 +47,7 @@ export async function bench(): Promise<void> {
   start = performance.now();
   computeArrivalGeometry(toas, observatories, { ephemeris });
   const warmS = (performance.now() - start) / 1000;
+  console.log(`load average while measuring: ${loadavg().map((v) => v.toFixed(2)).join(' ')} (2 cores; wall times grow with other jobs)`);
   console.log(`DE405 load (casacore table, once per process): ${loadS.toFixed(2)} s`);
   console.log(`barycentre ${TOA_COUNT} TOAs: ${coldS.toFixed(2)} s (target < ${TARGET_S} s, ratio ${(coldS / TARGET_S).toFixed(2)})`);
   console.log(`barycentre ${TOA_COUNT} TOAs, CPU time of that call: ${coldCpuS.toFixed(2)} s`);
