@@ -3,6 +3,7 @@
  * handler (api/middleware/error-handler.ts) turns it into
  * `{ error: { code, message, details? } }` with its status.
  */
+import type { core } from 'zod';
 
 export interface ErrorDetail {
   path: (string | number)[];
@@ -36,4 +37,15 @@ export function validationError(details: ErrorDetail[]): AppError {
   const first = details[0];
   const where = first && first.path.length > 0 ? `${first.path.join('.')}: ` : '';
   return new AppError(400, 'validation_failed', `${where}${first?.message ?? 'invalid input'}`, details);
+}
+
+/** zod issues → error details; an unknown key gets its own path so a form can point at it. */
+export function detailsFromIssues(issues: core.$ZodIssue[], prefix: (string | number)[] = []): ErrorDetail[] {
+  return issues.flatMap((issue): ErrorDetail[] => {
+    const path = [...prefix, ...issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p))];
+    if (issue.code === 'unrecognized_keys') {
+      return issue.keys.map((key) => ({ path: [...path, key], message: 'unknown field' }));
+    }
+    return [{ path, message: issue.message }];
+  });
 }

@@ -4,24 +4,13 @@
  * a getter). Failures become 400 validation_failed with one detail per problem.
  */
 import type { RequestHandler } from 'express';
-import type { ZodType, core } from 'zod';
-import { validationError, type ErrorDetail } from '../errors';
+import type { ZodType } from 'zod';
+import { detailsFromIssues, validationError, type ErrorDetail } from '../errors';
 
 export interface RequestSchemas {
   body?: ZodType;
   params?: ZodType;
   query?: ZodType;
-}
-
-/** zod issues → error details; an unknown key gets its own path so a form can point at it. */
-export function detailsFromIssues(issues: core.$ZodIssue[], prefix: (string | number)[] = []): ErrorDetail[] {
-  return issues.flatMap((issue): ErrorDetail[] => {
-    const path = [...prefix, ...issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p))];
-    if (issue.code === 'unrecognized_keys') {
-      return issue.keys.map((key) => ({ path: [...path, key], message: 'unknown field' }));
-    }
-    return [{ path, message: issue.message }];
-  });
 }
 
 export function validate(schemas: RequestSchemas): RequestHandler {

@@ -4,9 +4,8 @@
  * result parsed with the same schema as a new one, so every rule still holds.
  */
 import type { Knex } from 'knex';
-import { detailsFromIssues } from '../../middleware/validate';
 import { observatoryColumns, replaceClockCorrections, type ObservatoryJson } from '../../db/observatories';
-import { notFound, validationError } from '../../errors';
+import { detailsFromIssues, notFound, validationError } from '../../errors';
 import { CreateObservatoryBody, type UpdateObservatoryBody } from '../../routes/observatories/schema';
 import { getObservatory } from './get-observatory';
 
