@@ -1,6 +1,8 @@
-// Role and permission names as the API uses them (docs/api.md; the server's one table lives in api/auth/).
-export const ROLES = ['viewer', 'observer', 'analyst', 'lead', 'admin'] as const; // lowest to highest
-export type Role = (typeof ROLES)[number];
+// Role and permission names come from the API's one table (api/auth/permissions.ts, pure data),
+// so a renamed permission fails the type check here instead of hiding a link.
+import { ROLES, type Permission as ApiPermission, type Role } from '../../api/auth/permissions';
+
+export { ROLES, type Role };
 
 export const PERMISSIONS = {
   manageUsers: 'users:manage',
@@ -8,7 +10,7 @@ export const PERMISSIONS = {
   createPulsars: 'pulsars:create',
   startJobs: 'jobs:start',
   readOutbox: 'outbox:read',
-} as const;
+} as const satisfies Record<string, ApiPermission>;
 export type Permission = (typeof PERMISSIONS)[keyof typeof PERMISSIONS];
 
 export const ROLE_LABELS: Record<Role, string> = {

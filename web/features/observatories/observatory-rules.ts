@@ -1,8 +1,9 @@
 import { z } from 'zod';
 
 // Client-side checks for an observatory, the same rules the API applies to POST/PATCH
-// /api/observatories (docs/api.md, FORMATS.md §3): code 2–16 of a-z 0-9 - _ and not reserved,
-// a point 6350–6400 km from the geocentre, clock points in strictly increasing MJD.
+// /api/observatories (its schema is the engine's observatory reader, which the client does not
+// bundle): code 2–16 of a-z 0-9 - _ and not reserved, name up to 120 characters, a point
+// 6350–6400 km from the geocentre, clock points in strictly increasing MJD.
 export const MIN_GEOCENTRIC_DISTANCE_KM = 6350;
 export const MAX_GEOCENTRIC_DISTANCE_KM = 6400;
 const METRES_PER_KM = 1000;
@@ -56,7 +57,7 @@ export const ObservatoryFormValues = z
       .trim()
       .regex(OBSERVATORY_CODE_PATTERN, 'Code: 2–16 characters of a–z, 0–9, - or _')
       .refine((c) => !RESERVED_OBSERVATORY_CODES.has(c), 'Code: "ssb" and "geocenter" are reserved'),
-    name: z.string().trim().min(1, 'Name: enter the observatory name').max(200, 'Name: use at most 200 characters'),
+    name: z.string().trim().min(1, 'Name: enter the observatory name').max(120, 'Name: use at most 120 characters'),
     itrf_x_m: metres('x'),
     itrf_y_m: metres('y'),
     itrf_z_m: metres('z'),

@@ -1,30 +1,14 @@
 import { z } from 'zod';
+import { isDecDms, isRaHms, PulsarName } from '../../../api/contracts/pulsar';
 
-// Client-side checks for a new pulsar, the same rules the API applies to POST /api/pulsars
-// (its body schema in api/). The server stays the authority; its field errors land on the same fields.
-export const PULSAR_NAME_PATTERN = /^[A-Za-z0-9+_-]{1,32}$/;
-const RA_HMS = /^(\d{1,2}):(\d{2}):(\d{2})(\.\d{1,12})?$/;
-const DEC_DMS = /^([+-]?)(\d{1,2}):(\d{2}):(\d{2})(\.\d{1,12})?$/;
-
-/** Right ascension "hh:mm:ss[.s…]" with 0 ≤ hh < 24 and minutes, seconds < 60. */
-export function isRaHms(text: string): boolean {
-  const m = RA_HMS.exec(text);
-  return m !== null && Number(m[1]) < 24 && Number(m[2]) < 60 && Number(m[3]) < 60;
-}
-
-/** Declination "±dd:mm:ss[.s…]" within ±90° (exactly 90:00:00 at a pole) and minutes, seconds < 60. */
-export function isDecDms(text: string): boolean {
-  const m = DEC_DMS.exec(text);
-  if (!m) return false;
-  const degrees = Number(m[2]);
-  const minutes = Number(m[3]);
-  const seconds = Number(`${m[4]}${m[5] ?? ''}`);
-  if (minutes >= 60 || seconds >= 60) return false;
-  return degrees < 90 || (degrees === 90 && minutes === 0 && seconds === 0);
-}
-
+// The client checks a new pulsar with the API's own rules (api/contracts/pulsar.ts, shared by
+// design) and words the messages for the form. The server stays the authority; its field errors
+// land on the same fields.
 export const CreatePulsarBody = z.object({
-  name: z.string().trim().regex(PULSAR_NAME_PATTERN, 'Name: 1–32 letters, digits or + - _ (for example J1101-4417)'),
+  name: z
+    .string()
+    .trim()
+    .refine((v) => PulsarName.safeParse(v).success, 'Name: 1–32 letters, digits or + - _ (for example J1101-4417)'),
   raHms: z
     .string()
     .trim()

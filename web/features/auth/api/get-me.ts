@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 
 export interface SessionUser {
-  id: string;
+  id: number | string;
   email: string;
   displayName: string;
   role: string;

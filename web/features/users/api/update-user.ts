@@ -7,12 +7,12 @@ export interface UserPatch {
   active?: boolean;
 }
 
-export const updateUser = (id: string, patch: UserPatch) => api.patch<User>(`/users/${encodeURIComponent(id)}`, patch);
+export const updateUser = (id: number | string, patch: UserPatch) => api.patch<User>(`/users/${encodeURIComponent(id)}`, patch);
 
 export function useUpdateUser() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, patch }: { id: string; patch: UserPatch }) => updateUser(id, patch),
+    mutationFn: ({ id, patch }: { id: number | string; patch: UserPatch }) => updateUser(id, patch),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
   });
 }

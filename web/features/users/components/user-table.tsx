@@ -62,7 +62,7 @@ function UserRow({ user, isSelf }: { user: User; isSelf: boolean }) {
 }
 
 /** Every account; an administrator cannot demote or deactivate their own account from here. */
-export function UserTable({ users, currentUserId }: { users: User[]; currentUserId: string }) {
+export function UserTable({ users, currentUserId }: { users: User[]; currentUserId: number | string }) {
   return (
     <Table aria-label="Users">
       <THead>
