@@ -47,11 +47,14 @@ function decodeQuotedPrintable(text: string): Buffer {
   return Buffer.from(bytes);
 }
 
+/** The decoded text with SMTP's CRLF line ends turned back into LF. */
 function decodeBody(part: Part): string {
   const encoding = (part.headers.get('content-transfer-encoding') ?? '7bit').toLowerCase();
-  if (encoding === 'base64') return Buffer.from(part.body.replace(/\s+/g, ''), 'base64').toString('utf8');
-  if (encoding === 'quoted-printable') return decodeQuotedPrintable(part.body).toString('utf8');
-  return part.body.replace(/\r?\n$/, '');
+  let text: string;
+  if (encoding === 'base64') text = Buffer.from(part.body.replace(/\s+/g, ''), 'base64').toString('utf8');
+  else if (encoding === 'quoted-printable') text = decodeQuotedPrintable(part.body).toString('utf8');
+  else text = part.body.replace(/\r?\n$/, '');
+  return text.replace(/\r\n/g, '\n');
 }
 
 /** "=?UTF-8?Q?...?=" and "=?UTF-8?B?...?=" words (RFC 2047); whitespace between words is dropped. */
@@ -74,7 +77,8 @@ function collect(part: Part, found: { text: string | null; html: string | null }
     const sections = part.body.split(`--${boundary}`).slice(1);
     for (const section of sections) {
       if (section.startsWith('--')) break; // closing delimiter
-      collect(splitPart(section.replace(/^\r?\n/, '')), found);
+      // The line break before each delimiter belongs to the delimiter (RFC 2046 §5.1.1), not to the part.
+      collect(splitPart(section.replace(/^\r?\n/, '').replace(/\r?\n$/, '')), found);
     }
   } else if (mediaType === 'text/plain' && found.text === null) {
     found.text = decodeBody(part);

@@ -119,6 +119,26 @@ describe('invitations', () => {
   });
 });
 
+describe('the SMTP sink', () => {
+  it('captures non-ASCII subjects and bodies intact (encoded words, quoted-printable, base64)', async () => {
+    const { createMailer } = await import('../../api/mail/mailer');
+    const mailer = createMailer(t.config.mail);
+    const to = uniqueEmail('sink');
+    const subject = 'Ünïcödé — pulsar timing ✓ ' + 'long '.repeat(20).trim();
+    const text = `Grüße aus dem Moor: ${'x'.repeat(100)} = 1 + 1\nzweite Zeile ✓`;
+    const html = '<p>Grüße <b>✓</b></p>';
+    try {
+      await mailer.send({ to, subject, text, html });
+    } finally {
+      mailer.close();
+    }
+    const row = await waitForMail(t.knex, to);
+    expect(row.subject).toBe(subject);
+    expect(row.text_body).toBe(text);
+    expect(row.html_body).toBe(html);
+  });
+});
+
 describe('password reset', () => {
   it('e-mails a 1-hour single-use link; completing it sets the password, signs in and ends other sessions', async () => {
     const user = await createUser(t.knex, 'analyst');
