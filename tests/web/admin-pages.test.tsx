@@ -1,7 +1,7 @@
 import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { resetCsrfToken } from '../../web/lib/api-client';
-import { ADMIN_ME, mockApi, ok } from './helpers/mock-api';
+import { ADMIN_ME, fail, mockApi, ok } from './helpers/mock-api';
 import { renderApp } from './helpers/render-app';
 
 beforeEach(() => resetCsrfToken());
@@ -46,6 +46,21 @@ describe('users page', () => {
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
     expect(await within(form).findByText('Invitation sent')).toBeTruthy();
     expect(server.callsTo('POST', '/api/users/invitations')[0].body).toEqual({ email: 'lena@example.org', role: 'lead' });
+  });
+
+  it('puts "already has an account" on the e-mail field for a 409', async () => {
+    mockApi({
+      'GET /api/auth/me': ok(ADMIN_ME),
+      'GET /api/auth/csrf': ok({ token: 'tok' }),
+      'GET /api/users': ok(USERS),
+      'POST /api/users/invitations': fail(409, 'conflict', 'email: already has an account'),
+    });
+    const { user } = renderApp('/users');
+    const form = await screen.findByRole('form', { name: 'Invite a user' });
+    await user.type(within(form).getByLabelText('E-mail'), 'otto@example.org');
+    await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
+    expect(await within(form).findByText('E-mail: this address already has an account')).toBeTruthy();
+    expect(within(form).getByLabelText('E-mail').getAttribute('aria-invalid')).toBe('true');
   });
 });
 

@@ -44,8 +44,14 @@ describe('password reset', () => {
     expect(server.callsTo('POST', '/api/auth/password-reset/complete')[0].body).toEqual({ token: 'tok123', password: 'a much longer secret' });
   });
 
-  it('says an expired link is no longer valid', async () => {
-    mockApi({ 'GET /api/auth/csrf': ok({ token: 'tok' }), 'POST /api/auth/password-reset/complete': fail(404, 'not_found', 'No such reset') });
+  it('says an unknown, used or expired link is no longer valid', async () => {
+    // The documented answer: 400 with a detail on path ["token"] (docs/api.md, Details).
+    mockApi({
+      'GET /api/auth/csrf': ok({ token: 'tok' }),
+      'POST /api/auth/password-reset/complete': fail(400, 'validation_failed', 'token: unknown, used or expired reset link', [
+        { path: ['token'], message: 'unknown, used or expired reset link' },
+      ]),
+    });
     const { user } = renderApp('/reset-password/old');
     await user.type(await screen.findByLabelText('New password'), 'a much longer secret');
     await user.type(screen.getByLabelText('Confirm password'), 'a much longer secret');

@@ -7,7 +7,7 @@ import { TextLink } from '../../components/text-link';
 import { paths } from '../../config/paths';
 import { PERMISSIONS } from '../../config/permissions';
 import { isApiError } from '../../lib/api-client';
-import { formatCount, formatMjd } from '../../lib/format';
+import { formatCount, formatDateTimeUtc, formatMjd } from '../../lib/format';
 import { useMe } from '../../features/auth/api/get-me';
 import { pulsarQueryOptions, usePulsar } from '../../features/pulsars/api/get-pulsar';
 import { StatisticsJobPanel } from '../../features/pulsars/components/statistics-job-panel';
@@ -64,6 +64,7 @@ export default function PulsarRoute() {
             <Fact label="Observatories">{p.observatories.length ? p.observatories.join(', ') : '—'}</Fact>
             <Fact label="First TOA (MJD)">{formatMjd(p.firstMjd, 5)}</Fact>
             <Fact label="Last TOA (MJD)">{formatMjd(p.lastMjd, 5)}</Fact>
+            <Fact label="Statistics counted">{p.statisticsUpdatedAt ? formatDateTimeUtc(p.statisticsUpdatedAt) : 'not yet'}</Fact>
           </dl>
           <p className="mt-6 rounded-md border border-dashed border-night-600 px-4 py-3 text-sm text-night-300">
             TOAs, models and fits arrive here.

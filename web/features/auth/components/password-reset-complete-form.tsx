@@ -13,11 +13,11 @@ import { NewPasswordPair, PASSWORD_MIN_LENGTH } from '../password-rules';
 
 type Values = z.infer<typeof NewPasswordPair>;
 
-function resetErrorMessage(error: unknown): string {
-  if (isApiError(error) && (error.status === 404 || error.status === 410)) {
-    return 'This reset link is no longer valid. Ask for a new one.';
-  }
-  return describeError(error);
+export const RESET_LINK_GONE_MESSAGE = 'This reset link is no longer valid. Ask for a new one.';
+
+// The API answers an unknown, used or expired token with 400 and a detail on path ["token"] (docs/api.md).
+function isDeadResetLink(error: unknown): boolean {
+  return isApiError(error) && (error.status === 404 || error.details.some((d) => d.path[0] === 'token'));
 }
 
 /** New password + confirmation for the reset link `token`; the API signs the user in on success. */
@@ -31,7 +31,8 @@ export function PasswordResetCompleteForm({ token, onDone }: { token: string; on
       await complete.mutateAsync({ token, password });
       onDone();
     } catch (error) {
-      applyServerErrors(error, form.setError, ['password'], resetErrorMessage);
+      if (isDeadResetLink(error)) form.setError('root.server', { type: 'server', message: RESET_LINK_GONE_MESSAGE });
+      else applyServerErrors(error, form.setError, ['password'], describeError);
     }
   });
 

@@ -11,6 +11,8 @@ export interface Pulsar {
   lastMjd: number | string | null;
   observatories: string[];
   createdAt: string;
+  /** When the toa-statistics job last wrote the counts; null before its first run. */
+  statisticsUpdatedAt?: string | null;
 }
 
 export const pulsarKeys = {

@@ -8,6 +8,7 @@ import { describeError } from '../../../components/query-state';
 import { Select } from '../../../components/select';
 import { ROLE_LABELS, ROLES } from '../../../config/permissions';
 import { applyServerErrors } from '../../../lib/apply-server-errors';
+import { isApiError } from '../../../lib/api-client';
 import { formatDateTimeUtc } from '../../../lib/format';
 import { InviteUserBody, useInviteUser } from '../api/invite-user';
 
@@ -21,7 +22,12 @@ export function InviteUserForm() {
       await invite.mutateAsync(values);
       form.reset({ email: '', role: values.role });
     } catch (error) {
-      applyServerErrors(error, form.setError, ['email', 'role'], describeError);
+      // 409: the address already has an account (docs/api.md).
+      if (isApiError(error) && error.code === 'conflict') {
+        form.setError('email', { type: 'server', message: 'E-mail: this address already has an account' });
+      } else {
+        applyServerErrors(error, form.setError, ['email', 'role'], describeError);
+      }
     }
   });
 
