@@ -25,7 +25,9 @@ describe('sign-in and sign-out', () => {
     expect(me.body.data.permissions).not.toContain('users:manage');
     expect(me.body.data.user).not.toHaveProperty('passwordHash');
 
+    const sessionsBefore = await countRows(t.knex, 'sessions');
     await agent.post('/api/auth/sign-out').set('x-csrf-token', csrf).expect(204);
+    expect(await countRows(t.knex, 'sessions')).toBe(sessionsBefore - 1); // destroyed, not just emptied
     const after = await agent.get('/api/auth/me').expect(401);
     expect(after.body.error.code).toBe('not_signed_in');
   });

@@ -1,5 +1,8 @@
 /** Health, the error shape of 404/500, security headers, and the demo seed. */
 import express from 'express';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { Redis } from 'ioredis';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -102,6 +105,28 @@ describe('errors', () => {
     expect(csp).toContain("frame-ancestors 'none'");
     expect(res.headers['cache-control']).toBe('no-store');
     expect(res.headers['x-powered-by']).toBeUndefined();
+  });
+});
+
+describe('serving the built client', () => {
+  it('serves files and index.html for client routes, while /api stays JSON', async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), 'pk-client-'));
+    writeFileSync(path.join(dir, 'index.html'), '<!doctype html><title>client</title>');
+    mkdirSync(path.join(dir, 'assets'));
+    writeFileSync(path.join(dir, 'assets', 'app.js'), 'console.log(1)');
+    const withClient = buildTestApp({ deps: { clientDir: dir } });
+    try {
+      const page = await request(withClient.app).get('/pulsars/12').expect(200);
+      expect(page.headers['content-type']).toMatch(/^text\/html/);
+      expect(page.text).toContain('<title>client</title>');
+      const asset = await request(withClient.app).get('/assets/app.js').expect(200);
+      expect(asset.headers['content-type']).toMatch(/javascript/);
+      const api = await request(withClient.app).get('/api/nope').expect(404);
+      expect(api.body.error.code).toBe('not_found');
+    } finally {
+      await withClient.close();
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
 
