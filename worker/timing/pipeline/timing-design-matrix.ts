@@ -1,8 +1,8 @@
 /**
  * The design matrix of the timing fit: ∂residual_i/∂parameter_j in seconds
- * per internal parameter unit (column-major n×p), analytic where the
- * derivative is simple and numeric (Richardson-extrapolated central
- * differences) for companion orbits and glitch epochs/decay times.
+ * per internal parameter unit (column-major n×p): analytic for spin, astrometry,
+ * dispersion, offsets, companion orbits and most glitch terms; numeric
+ * (Richardson-extrapolated central differences) for glitch epochs and decay times.
  */
 import type { TimingModel } from '../model/timing-model';
 import { parameterHandle } from '../model/parameter-paths';
@@ -11,8 +11,7 @@ import type { TimingEvaluation } from './timing-residuals';
 import { curvatureTermPerMas } from '../delays/roemer-delay';
 import { AU_LIGHT_SECONDS, DM_DELAY_CONSTANT_S_MHZ2, RAD_PER_MAS, SUN_MASS_SECONDS } from '../delays/physical-constants';
 import { dispersionTaylorCoefficient } from '../delays/dispersion-measure-at';
-import { addCompanionDelayS, companionDelaysFromDaysS } from '../orbits/companion-delays';
-import type { BarycentricDays } from '../orbits/barycentric-days';
+import { companionDelayPartials, TIME_RATE_KEY } from '../orbits/companion-delay-partials';
 import { numericDerivativeColumn } from '../fit/numeric-derivative';
 import { prepareSpin, spinPhase, type SpinPhaseValue } from './spin-phase';
 import { ddAddNumber } from '../time/double-double-typed';
@@ -47,9 +46,10 @@ const OFFSET_PATH = /^offsets\[([^\]]+)\]\.seconds$/;
  *           motion enters through α(t) = α₀ + μ_α* t/cos δ₀ and δ(t) = δ₀ + μ_δ t. The gradient with
  *           respect to n̂ includes the Roemer, curvature, solar Shapiro and Doppler-dispersion terms
  *           (delayGradient); the dependence of α(t) on δ₀ through 1/cos δ₀ is dropped (∝ μt ≲ 1e-7).
- *        3. Numeric columns use worker/timing/fit/numeric-derivative.ts (≤ 1e-6 relative) on the one
- *           companion's delay or on the glitch phase alone, with a step scale L set from the
- *           parameter's physics (companionStepScale, glitch rules below).
+ *        3. Companion columns are analytic (orbits/companion-delay-partials.ts: one pass per companion
+ *           instead of four delay evaluations per parameter). Glitch epoch and decay-time columns are
+ *           numeric (worker/timing/fit/numeric-derivative.ts, ≤ 1e-6 relative) on the glitch phase
+ *           alone; the other glitch columns are analytic.
  *        4. A delay that moves the barycentric time also moves the time at which the companion orbits
  *           are evaluated: the emission time changes by (1 − dΔ_c/dt) per second of barycentric delay
  *           (dΔ_c/dt ≈ 2πx/Pb, up to ~1e-3), so astrometry and dispersion columns carry that factor.
@@ -67,13 +67,18 @@ export function timingDesignMatrix(
   const n = prepared.count;
   const p = paths.length + (withPhaseOffset ? 1 : 0);
   const design = new Float64Array(n * p);
-  let companionRate: Float64Array | undefined;
+  const needsRate = paths.some((path) => path.startsWith('astrometry.') || path.startsWith('dispersion.'));
+  const orbital = companionPartialsFor(model, evaluation, paths, needsRate);
   paths.forEach((path, j) => {
     const column = design.subarray(j * n, (j + 1) * n);
+    const companionPartial = orbital.byPath.get(path);
+    if (companionPartial !== undefined) {
+      for (let i = 0; i < n; i += 1) column[i] = -companionPartial[i]; // Note 1: companion delay is subtracted
+      return;
+    }
     fillColumn(model, prepared, evaluation, path, column);
-    if (path.startsWith('astrometry.') || path.startsWith('dispersion.')) {
-      companionRate ??= companionDelayRate(model, evaluation);
-      for (let i = 0; i < n; i += 1) column[i] *= 1 - companionRate[i]; // Note 4
+    if (needsRate && (path.startsWith('astrometry.') || path.startsWith('dispersion.'))) {
+      for (let i = 0; i < n; i += 1) column[i] *= 1 - orbital.rate[i]; // Note 4
     }
   });
   if (withPhaseOffset) {
@@ -121,11 +126,6 @@ function fillColumn(model: TimingModel, prepared: PreparedArrivals, ev: TimingEv
   if (match !== null) {
     const b = prepared.backends.indexOf(match[1]);
     for (let i = 0; i < n; i += 1) column[i] = prepared.backendIndex[i] === b ? -1 : 0; // offset is subtracted
-    return;
-  }
-  match = COMPANION_PATH.exec(path);
-  if (match !== null) {
-    fillCompanionColumn(model, ev, path, match[1], match[2], column);
     return;
   }
   match = GLITCH_PATH.exec(path);
@@ -209,73 +209,24 @@ function delayGradient(prepared: PreparedArrivals, ev: TimingEvaluation, paralla
   return gradientOut;
 }
 
-/** dΔ_c/dt per TOA (seconds per second), the rate of the summed companion delays; 0 without companions. */
-function companionDelayRate(model: TimingModel, ev: TimingEvaluation): Float64Array {
-  const enabled = model.companions.filter((c) => c.enabled);
-  if (enabled.length === 0) return new Float64Array(ev.count);
-  const shortestPeriodS = Math.min(...enabled.map((c) => c.periodDays)) * 86_400;
-  const shifted: BarycentricDays = { reference: ev.barycentricDays.reference, hi: new Float64Array(ev.count), lo: new Float64Array(ev.count) };
-  return numericDerivativeColumn((offsetS) => {
-    for (let i = 0; i < ev.count; i += 1) {
-      const days = ddAddNumber([ev.barycentricDays.lo[i], ev.barycentricDays.hi[i]], offsetS / 86_400);
-      shifted.hi[i] = days[1];
-      shifted.lo[i] = days[0];
-    }
-    return companionDelaysFromDaysS(enabled, shifted);
-  }, shortestPeriodS / (2 * Math.PI)); // the delay turns over in Pb/2π
-}
-
-/** Largest |t − epoch| over the data, days (for step scales). */
-function spanDays(ev: TimingEvaluation, epochOffsetDays: number): number {
-  let span = 1;
-  for (let i = 0; i < ev.count; i += 1) span = Math.max(span, Math.abs(ev.barycentricDays.hi[i] - epochOffsetDays));
-  return span;
-}
-
 /**
- * Step scale L for a companion parameter: the change that moves the delay by about its own size
- * (numeric-derivative.ts, step-size rule).
+ * Analytic ∂Δ_c/∂p for every companion path in `paths` (orbits/companion-delay-partials.ts), one pass
+ * per companion, and the summed rate dΔ_c/dt of all enabled companions when asked (Note 4).
  */
-function companionStepScale(key: string, value: number, periodDays: number, span: number): number {
-  switch (key) {
-    case 'period_days':
-      return (periodDays * periodDays) / (2 * Math.PI * span); // shifts the orbital phase by 1 rad over the span
-    case 'periastron_epoch_mjd':
-    case 'ascending_node_epoch_mjd':
-      return periodDays / (2 * Math.PI);
-    case 'periastron_longitude_deg':
-      return 180 / Math.PI;
-    case 'eccentricity':
-    case 'e_sin_omega':
-    case 'e_cos_omega':
-      return 0.05;
-    case 'period_derivative':
-      return 1 / (Math.PI * (span / periodDays) ** 2);
-    case 'periastron_advance_deg_per_yr':
-      return ((180 / Math.PI) * 365.25) / span;
-    default:
-      return Math.max(Math.abs(value), 1e-3); // delays linear in the parameter (x, γ, …)
+function companionPartialsFor(model: TimingModel, ev: TimingEvaluation, paths: readonly string[], withRate: boolean): { byPath: Map<string, Float64Array>; rate: Float64Array } {
+  const byPath = new Map<string, Float64Array>();
+  const rate = new Float64Array(ev.count);
+  for (const companion of model.companions) {
+    const wanted = paths.filter((p) => COMPANION_PATH.exec(p)?.[1] === companion.name);
+    if (wanted.length === 0 && !(withRate && companion.enabled)) continue;
+    wanted.forEach((p) => parameterHandle(model, p)); // unknown keys: TimingInputError naming the path
+    const keys = [...wanted.map((p) => COMPANION_PATH.exec(p)![2]), TIME_RATE_KEY];
+    const partials = companionDelayPartials(companion, ev.barycentricDays, keys);
+    wanted.forEach((p, j) => byPath.set(p, partials[j]));
+    const companionRate = partials[keys.length - 1];
+    for (let i = 0; i < ev.count; i += 1) rate[i] += companionRate[i];
   }
-}
-
-function fillCompanionColumn(model: TimingModel, ev: TimingEvaluation, path: string, name: string, key: string, column: Float64Array): void {
-  const handle = parameterHandle(model, path);
-  const companion = model.companions.find((c) => c.name === name)!;
-  const base = handle.get(model);
-  const epoch = 'periastronEpochMjd' in companion ? companion.periastronEpochMjd : companion.ascendingNodeEpochMjd;
-  const epochOffset = mjdDiffDays(epoch, ev.barycentricDays.reference)[1];
-  const scale = companionStepScale(key, base[1], companion.periodDays, spanDays(ev, epochOffset));
-  const trial = structuredClone(companion);
-  const holder = { ...model, companions: [trial] } as TimingModel;
-  const delays = new Float64Array(ev.count);
-  const derivative = numericDerivativeColumn((offset) => {
-    handle.set(holder, ddAddNumber(base, offset));
-    delays.fill(0);
-    addCompanionDelayS({ ...trial, enabled: true }, ev.barycentricDays, delays);
-    return delays;
-  }, scale);
-  if (!companion.enabled) derivative.fill(0); // a disabled companion has no effect (the fit reports it)
-  for (let i = 0; i < ev.count; i += 1) column[i] = -derivative[i]; // Note 1: companion delay is subtracted
+  return { byPath, rate };
 }
 
 function fillGlitchColumn(model: TimingModel, ev: TimingEvaluation, path: string, index: number, key: string, column: Float64Array): void {
