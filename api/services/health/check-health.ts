@@ -30,6 +30,9 @@ export async function checkHealth(knex: Knex, redis: Redis): Promise<Health> {
   const [database, redisState] = await Promise.all([
     probe(() => knex.raw('SELECT 1')),
     probe(async () => {
+      // Lost connection: answer at once instead of queueing one more PING behind the reconnect.
+      // (While the first connection is still being made, the PING waits for it, up to the timeout.)
+      if (['reconnecting', 'close', 'end'].includes(redis.status)) throw new Error(`redis connection is ${redis.status}`);
       if ((await redis.ping()) !== 'PONG') throw new Error('unexpected PING reply');
     }),
   ]);
