@@ -28,6 +28,10 @@ describe("Kepler's equation", () => {
   it('keeps the revolution of M and rejects e ≥ 1', () => {
     expectWithin(solveKepler(20 * Math.PI + 0.3, 0.5) - 20 * Math.PI, solveKepler(0.3, 0.5), 1e-13, 'revolution');
     expect(() => solveKepler(1, 1)).toThrow(RangeError);
+    expect(() => solveKepler(1, -1)).toThrow(RangeError);
+    // slightly negative e (numeric derivatives straddling e = 0) still solves the equation
+    const E = solveKepler(0.7, -1e-4);
+    expectWithin(E + 1e-4 * Math.sin(E), 0.7, 1e-15, 'e = −1e-4');
     expect(() => solveKepler(Number.NaN, 0.1)).toThrow(RangeError);
   });
 });
