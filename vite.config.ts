@@ -8,7 +8,8 @@ const apiPort = Number(process.env.PULSEKEEPER_API_PORT ?? 4400);
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
-  build: { outDir: 'dist', emptyOutDir: true },
+  // No inlined data: URLs (small fonts would be): the API's Content-Security-Policy allows only 'self'.
+  build: { outDir: 'dist', emptyOutDir: true, assetsInlineLimit: 0 },
   server: {
     host: '127.0.0.1',
     port: webPort,
