@@ -5,7 +5,6 @@
  */
 import type { DoubleDouble, Mjd } from '../time/epoch';
 import { mjdDiffDays } from '../time/mjd-arithmetic';
-import { ddDivideByNumber, ddSub } from '../time/double-double-typed';
 
 export interface BarycentricDays {
   /** The instant the days count from (TDB). */
@@ -56,13 +55,38 @@ export function orbitCountAt(
   periodDays: number,
   out: OrbitCount,
 ): OrbitCount {
-  const elapsed = ddSub([days.lo[i], days.hi[i]], epochDays);
-  const orbits = ddDivideByNumber(elapsed, periodDays);
-  const whole = Math.round(orbits[1]);
+  // elapsed = (hi + lo) − (eHi + eLo): two-sum of the large parts, then the small ones (Knuth 1969,
+  // TAOCP vol. 2, §4.2.2: error-free addition)
+  const a = days.hi[i];
+  const b = -epochDays[1];
+  const sum = a + b;
+  const bVirtual = sum - a;
+  const sumError = (a - (sum - bVirtual)) + (b - bVirtual) + (days.lo[i] - epochDays[0]);
+  const elapsedHi = sum + sumError;
+  const elapsedLo = sumError - (elapsedHi - sum);
+  // orbits = elapsed / Pb in double-double: q₁ = hi/Pb, then the exact remainder (Dekker 1971, Numer. Math. 18, 224)
+  const q1 = elapsedHi / periodDays;
+  const product = q1 * periodDays;
+  const remainder = elapsedHi - product - productError(q1, periodDays, product) + elapsedLo;
+  const q2 = remainder / periodDays;
+  const whole = Math.round(q1);
   out.wholeOrbits = whole;
-  out.fractionalOrbits = orbits[1] - whole + orbits[0]; // hi − whole is exact (Sterbenz)
-  out.elapsedDays = elapsed[1] + elapsed[0];
+  out.fractionalOrbits = q1 - whole + q2; // q1 − whole is exact (Sterbenz)
+  out.elapsedDays = elapsedHi + elapsedLo;
   return out;
+}
+
+const SPLITTER = 134_217_729; // 2^27 + 1 (Dekker 1971)
+
+/** The exact rounding error of a·b given p = fl(a·b): Dekker's two-product by splitting. */
+function productError(a: number, b: number, p: number): number {
+  const ca = SPLITTER * a;
+  const aHi = ca - (ca - a);
+  const aLo = a - aHi;
+  const cb = SPLITTER * b;
+  const bHi = cb - (cb - b);
+  const bLo = b - bHi;
+  return ((aHi * bHi - p) + aHi * bLo + aLo * bHi) + aLo * bLo;
 }
 
 /** epoch − reference in days (double-double). */

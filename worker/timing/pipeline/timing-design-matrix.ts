@@ -141,43 +141,62 @@ function dispersionPerDm(barycentricFreqMhz: number): number {
   return barycentricFreqMhz === Infinity ? 0 : DM_DELAY_CONSTANT_S_MHZ2 / (barycentricFreqMhz * barycentricFreqMhz);
 }
 
-function fillAstrometryColumn(model: TimingModel, prepared: PreparedArrivals, ev: TimingEvaluation, key: string, column: Float64Array): void {
-  const r = prepared.geometry.observatoryPositionLs;
+/** ∂(delays)/∂α and ∂/∂δ per TOA at the propagated position (Note 2), computed once per design matrix. */
+interface SkyGradients { dRa: Float64Array; dDec: Float64Array }
+const skyGradientCache = new WeakMap<TimingEvaluation, SkyGradients>();
+
+function skyGradients(model: TimingModel, prepared: PreparedArrivals, ev: TimingEvaluation): SkyGradients {
+  const cached = skyGradientCache.get(ev);
+  if (cached !== undefined) return cached;
   const d = ev.directionXyz;
-  const cosDec0 = Math.cos(model.astrometry.decRad);
+  const dRa = new Float64Array(prepared.count);
+  const dDec = new Float64Array(prepared.count);
   for (let i = 0; i < prepared.count; i += 1) {
-    const k = 3 * i;
-    const [nx, ny, nz] = [d[k], d[k + 1], d[k + 2]];
+    const nx = d[3 * i];
+    const ny = d[3 * i + 1];
+    const nz = d[3 * i + 2];
     const cosDec = Math.hypot(nx, ny);
-    const sinDec = nz;
     const cosRa = cosDec > 0 ? nx / cosDec : 1;
     const sinRa = cosDec > 0 ? ny / cosDec : 0;
-    const years = ev.yearsSinceEpoch[i];
-    const [gx, gy, gz] = delayGradient(prepared, ev, model.astrometry.parallaxMas, i, nx, ny, nz);
-    // Note 2: G·∂n̂/∂α and G·∂n̂/∂δ
-    const dRoemerDRa = cosDec * (-sinRa * gx + cosRa * gy);
-    const dRoemerDDec = -sinDec * cosRa * gx - sinDec * sinRa * gy + cosDec * gz;
-    switch (key) {
-      case 'ra_hms':
-        column[i] = dRoemerDRa;
-        break;
-      case 'dec_dms':
-        column[i] = dRoemerDDec;
-        break;
-      case 'pm_ra_cosdec_mas_per_yr':
-        column[i] = (dRoemerDRa * years * RAD_PER_MAS) / cosDec0;
-        break;
-      case 'pm_dec_mas_per_yr':
-        column[i] = dRoemerDDec * years * RAD_PER_MAS;
-        break;
-      case 'parallax_mas': {
-        const along = r[k] * nx + r[k + 1] * ny + r[k + 2] * nz;
-        column[i] = -curvatureTermPerMas(r[k], r[k + 1], r[k + 2], along); // Edwards et al. 2006
-        break;
-      }
-      default:
-        throw new RangeError(`timingDesignMatrix: no derivative rule for astrometry.${key}`);
+    const g = delayGradient(prepared, ev, model.astrometry.parallaxMas, i, nx, ny, nz);
+    dRa[i] = cosDec * (-sinRa * g[0] + cosRa * g[1]); // G·∂n̂/∂α
+    dDec[i] = -nz * cosRa * g[0] - nz * sinRa * g[1] + cosDec * g[2]; // G·∂n̂/∂δ
+  }
+  const gradients = { dRa, dDec };
+  skyGradientCache.set(ev, gradients);
+  return gradients;
+}
+
+function fillAstrometryColumn(model: TimingModel, prepared: PreparedArrivals, ev: TimingEvaluation, key: string, column: Float64Array): void {
+  const n = prepared.count;
+  const years = ev.yearsSinceEpoch;
+  if (key === 'parallax_mas') {
+    const r = prepared.geometry.observatoryPositionLs;
+    const d = ev.directionXyz;
+    for (let i = 0; i < n; i += 1) {
+      const k = 3 * i;
+      const along = r[k] * d[k] + r[k + 1] * d[k + 1] + r[k + 2] * d[k + 2];
+      column[i] = -curvatureTermPerMas(r[k], r[k + 1], r[k + 2], along); // Edwards et al. 2006
     }
+    return;
+  }
+  const { dRa, dDec } = skyGradients(model, prepared, ev);
+  const raPerPm = RAD_PER_MAS / Math.cos(model.astrometry.decRad); // α(t) = α₀ + μ_α* t / cos δ₀
+  switch (key) {
+    case 'ra_hms':
+      column.set(dRa);
+      return;
+    case 'dec_dms':
+      column.set(dDec);
+      return;
+    case 'pm_ra_cosdec_mas_per_yr':
+      for (let i = 0; i < n; i += 1) column[i] = dRa[i] * years[i] * raPerPm;
+      return;
+    case 'pm_dec_mas_per_yr':
+      for (let i = 0; i < n; i += 1) column[i] = dDec[i] * years[i] * RAD_PER_MAS;
+      return;
+    default:
+      throw new RangeError(`timingDesignMatrix: no derivative rule for astrometry.${key}`);
   }
 }
 
