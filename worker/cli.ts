@@ -1,11 +1,11 @@
 /**
  * The command line over the timing engine (docs/formats.md §4):
  *
- *   npm run --silent cli -- fit      --toas F.csv --model M.json [--max-iterations K]
- *   npm run --silent cli -- delays   --toas F.csv --model M.json
+ *   npm run --silent cli -- fit      --toas F.csv --model M.json [--max-iterations K] [--jupiter-shapiro]
+ *   npm run --silent cli -- delays   --toas F.csv --model M.json [--jupiter-shapiro]
  *   npm run --silent cli -- simulate --model M.json --start-mjd A --end-mjd B --count N
  *                                    --observatory CODE --uncertainty-us S
- *                                    [--frequency-mhz F] [--seed K] [--pulse-numbers]
+ *                                    [--frequency-mhz F] [--seed K] [--pulse-numbers] [--jupiter-shapiro]
  *   npm run --silent cli -- search   (not available yet)
  *
  * Results go to stdout (JSON; CSV for `simulate`). Problems go to stderr as one
@@ -38,7 +38,7 @@ class CliError extends Error {
 
 type Output = { stdout: string; exitCode: number; stderr?: string };
 
-const FILE_OPTIONS: OptionSpec = { toas: { type: 'string' }, model: { type: 'string' } };
+const FILE_OPTIONS: OptionSpec = { toas: { type: 'string' }, model: { type: 'string' }, 'jupiter-shapiro': { type: 'boolean' } };
 
 type OptionSpec = Record<string, { type: 'string' | 'boolean' }>;
 type OptionValues = Record<string, string | boolean | undefined>;
@@ -103,7 +103,7 @@ function runFit(args: string[]): Output {
   const maxIterations = values['max-iterations'] === undefined
     ? undefined
     : parseNumberOption('fit', 'max-iterations', values['max-iterations'] as string, (x) => Number.isInteger(x) && x >= 1, 'a whole number ≥ 1');
-  const fit = fitTimingModel(model, toas, observatories, { maxIterations });
+  const fit = fitTimingModel(model, toas, observatories, { maxIterations, includeJupiterShapiro: values['jupiter-shapiro'] === true });
   const parameters: Record<string, { value: string; uncertainty: number; unit: string }> = {};
   for (const [path, p] of Object.entries(fit.parameters)) parameters[path] = { value: p.value, uncertainty: p.uncertainty, unit: p.fileUnit };
   const output = {
@@ -136,7 +136,8 @@ function runDelays(args: string[]): Output {
   const observatories = loadObservatories();
   const toas = readToas(requireOption('delays', values, 'toas'), observatories);
   const geometry = computeArrivalGeometry(toas, observatories);
-  return { stdout: `${JSON.stringify(timingDelayReport(model, toas, geometry), null, 2)}\n`, exitCode: 0 };
+  const rows = timingDelayReport(model, toas, geometry, { includeJupiterShapiro: values['jupiter-shapiro'] === true });
+  return { stdout: `${JSON.stringify(rows, null, 2)}\n`, exitCode: 0 };
 }
 
 function runSimulate(args: string[]): Output {
@@ -150,6 +151,7 @@ function runSimulate(args: string[]): Output {
     'frequency-mhz': { type: 'string' },
     seed: { type: 'string' },
     'pulse-numbers': { type: 'boolean' },
+    'jupiter-shapiro': { type: 'boolean' },
   });
   const model = readModel(requireOption('simulate', values, 'model'));
   const mjdOption = (name: string) => {
@@ -174,7 +176,7 @@ function runSimulate(args: string[]): Output {
   if (!observatories.has(observatory) && observatory !== 'ssb' && observatory !== 'geocenter') {
     throw new CliError(`simulate: --observatory "${observatory}" is not a registered observatory (known: ${[...observatories.keys(), 'ssb', 'geocenter'].join(', ')})`);
   }
-  const result = simulateToas(model, { startMjd, endMjd, count, observatory, uncertaintyUs, frequencyMhz, seed, withPulseNumbers: values['pulse-numbers'] === true }, observatories);
+  const result = simulateToas(model, { startMjd, endMjd, count, observatory, uncertaintyUs, frequencyMhz, seed, withPulseNumbers: values['pulse-numbers'] === true, includeJupiterShapiro: values['jupiter-shapiro'] === true }, observatories);
   const comments = [
     `simulated from the model of ${model.pulsar}: ${count} TOAs at ${observatory}, seed ${seed}, noise ${uncertaintyUs} us`,
     ...result.warnings,

@@ -65,6 +65,17 @@ describe.concurrent('command line', () => {
     expect(Math.abs(differenceS - sumS)).toBeLessThan(1e-6); // float parsing of the text limits this check to ~µs
   });
 
+  it('delays --jupiter-shapiro adds Jupiter\'s Shapiro delay (tens of ns away from conjunction, common practice)', async () => {
+    const args = ['delays', '--toas', `${FIXTURES}/demo-toas.csv`, '--model', `${FIXTURES}/demo-model.json`];
+    const [sun, both] = await Promise.all([cli(args), cli([...args, '--jupiter-shapiro'])]);
+    const a = JSON.parse(sun.stdout);
+    const b = JSON.parse(both.stdout);
+    const jupiterS = b.map((row: { shapiro_s: number }, i: number) => row.shapiro_s - a[i].shapiro_s);
+    expect(Math.max(...jupiterS.map(Math.abs))).toBeGreaterThan(1e-9);
+    expect(Math.max(...jupiterS.map(Math.abs))).toBeLessThan(2e-7);
+    expect(b[0].roemer_s).toBe(a[0].roemer_s);
+  });
+
   it('simulate writes a CSV that the fit then matches with χ²/dof near 1, reproducibly from the seed', async () => {
     const args = ['simulate', '--model', `${FIXTURES}/demo-model.json`, '--start-mjd', '58000', '--end-mjd', '58900', '--count', '60', '--observatory', 'cardenal-plateau', '--uncertainty-us', '2', '--frequency-mhz', '820', '--seed', '5'];
     const [a, b] = await Promise.all([cli(args), cli(args)]);
