@@ -11,6 +11,11 @@ export type ToaStatisticsJob = z.infer<typeof ToaStatisticsJob>;
 
 export const JOB_TYPES = { toaStatistics: 'toa-statistics' } as const;
 
+/** Payload of the `campaign` job: the campaign row holds everything else (the job is re-entrant, see worker/jobs/campaign.ts). */
+export const CampaignJob = z.object({ campaignId: z.number().int().positive() }).strict();
+export type CampaignJob = z.infer<typeof CampaignJob>;
+export const CAMPAIGN_JOB_TYPE = 'campaign';
+
 /** Progress as reported by every job: a percentage and a stage name for the progress bar. */
 export const JobProgress = z.object({ percent: z.number().min(0).max(100), stage: z.string() });
 export type JobProgress = z.infer<typeof JobProgress>;
