@@ -23,6 +23,7 @@ export const PERMISSIONS = {
   'pulsars:create': ANALYST_UP,
   'jobs:start': ANALYST_UP,
   'jobs:read': ALL,
+  'campaigns:read': ALL,
   // later issues
   'toas:upload': OBSERVER_UP,
   'toas:exclude': ANALYST_UP,
