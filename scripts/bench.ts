@@ -3,6 +3,7 @@
  * figures and ratios to their targets (never asserted in timed tests).
  */
 const suites = ['precision', 'barycentre', 'fit'];
+export {};
 for (const name of suites) {
   console.log(`\n== ${name} ==`);
   const suite = (await import(`./bench/${name}.ts`)) as { bench: () => Promise<void> };
