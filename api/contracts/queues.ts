@@ -9,7 +9,11 @@ export const QUEUE_NAME = 'pulsekeeper';
 export const ToaStatisticsJob = z.object({ pulsarId: z.number().int().positive() }).strict();
 export type ToaStatisticsJob = z.infer<typeof ToaStatisticsJob>;
 
-export const JOB_TYPES = { toaStatistics: 'toa-statistics' } as const;
+/** Payload of the `fit-run` job: the fit_runs row holds everything else (api/services/fit-runs/create-fit-run.ts). */
+export const FitRunJob = z.object({ fitRunId: z.number().int().positive() }).strict();
+export type FitRunJob = z.infer<typeof FitRunJob>;
+
+export const JOB_TYPES = { toaStatistics: 'toa-statistics', fitRun: 'fit-run' } as const;
 
 /** Payload of the `campaign` job: the campaign row holds everything else (the job is re-entrant, see worker/jobs/campaign.ts). */
 export const CampaignJob = z.object({ campaignId: z.number().int().positive() }).strict();
