@@ -48,7 +48,8 @@ export function resetCsrfToken(): void {
   csrfTokenRequest = null;
 }
 
-async function getCsrfToken(): Promise<string> {
+/** The session's CSRF token (cached; concurrent callers share one request). Exported for the upload helper. */
+export async function getCsrfToken(): Promise<string> {
   if (csrfToken) return csrfToken;
   // Concurrent mutations share one token request.
   csrfTokenRequest ??= send<{ token: string }>('GET', '/auth/csrf').then(
@@ -85,7 +86,8 @@ async function readJson(response: Response): Promise<unknown> {
   }
 }
 
-function errorFromBody(status: number, body: unknown): ApiError {
+/** Turns a failed response's parsed body into an ApiError. Exported for the upload helper. */
+export function errorFromBody(status: number, body: unknown): ApiError {
   const error = (body as { error?: { code?: unknown; message?: unknown; details?: unknown } } | undefined)?.error;
   if (error && typeof error.code === 'string') {
     const message = typeof error.message === 'string' ? error.message : error.code;
