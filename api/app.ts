@@ -17,9 +17,11 @@ import { createCsrf } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { createRateLimits, DEFAULT_RATE_LIMITS } from './middleware/rate-limits';
 import { addAuthRoutes } from './routes/auth/router';
+import { addCampaignRoutes } from './routes/campaigns/router';
 import { addHealthRoutes } from './routes/health/router';
 import { addInvitationRoutes } from './routes/invitations/router';
 import { addJobRoutes } from './routes/jobs/router';
+import { addNotificationRoutes } from './routes/notifications/router';
 import { addObservatoryRoutes } from './routes/observatories/router';
 import { addOutboxRoutes } from './routes/outbox/router';
 import { addPulsarRoutes } from './routes/pulsars/router';
@@ -105,6 +107,8 @@ export function createApp(deps: AppDeps): Application {
   addObservatoryRoutes(routes, deps);
   addPulsarRoutes(routes, deps);
   addJobRoutes(routes, deps);
+  addCampaignRoutes(routes, deps);
+  addNotificationRoutes(routes, deps);
   app.use('/api', apiNotFound);
 
   if (deps.clientDir && existsSync(path.join(deps.clientDir, 'index.html'))) {

@@ -44,6 +44,13 @@ const EXPECTED: Record<string, { allowed: Who[]; url: string; endsSession?: true
   'GET /api/pulsars/:id': { allowed: SIGNED_IN, url: '/api/pulsars/2147480000' },
   'POST /api/pulsars/:id/statistics-jobs': { allowed: ANALYST_UP, url: '/api/pulsars/2147480000/statistics-jobs' },
   'GET /api/jobs/:id': { allowed: SIGNED_IN, url: '/api/jobs/no-such-job' },
+  'POST /api/campaigns': { allowed: ['lead', 'admin'], url: '/api/campaigns' },
+  'GET /api/campaigns': { allowed: SIGNED_IN, url: '/api/campaigns' },
+  'GET /api/campaigns/:id': { allowed: SIGNED_IN, url: '/api/campaigns/2147480000' },
+  'POST /api/campaigns/:id/cancel': { allowed: ['lead', 'admin'], url: '/api/campaigns/2147480000/cancel' },
+  'PUT /api/campaigns/:id/notification': { allowed: SIGNED_IN, url: '/api/campaigns/2147480000/notification' },
+  'GET /api/notifications': { allowed: SIGNED_IN, url: '/api/notifications' },
+  'PUT /api/pulsars/:id/notification': { allowed: SIGNED_IN, url: '/api/pulsars/2147480000/notification' },
 };
 
 // The registry is filled while an app is built: a throwaway app lists it when the tests are collected.
