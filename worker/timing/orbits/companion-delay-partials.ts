@@ -51,10 +51,10 @@ function keyIndex(keys: readonly string[], key: string): number {
 }
 
 /** Per-TOA quantities of the Keplerian delay shared by all its partials (reused, no allocation). */
-const bt = { D: 0, q: 0, C: 0, n: 0, alpha: 0, cosEMinusE: 0, sinE: 0, dDdE: 0, dqdE: 0, dqdAlpha: 0, dqdBeta: 0, dqdEExplicit: 0 };
+const keplerianState = { D: 0, q: 0, C: 0, n: 0, alpha: 0, cosEMinusE: 0, sinE: 0, dDdE: 0, dqdE: 0, dqdAlpha: 0, dqdBeta: 0, dqdEExplicit: 0 };
 
 /** ∂Δ from the changes of E, α, β, γ, the explicit e and n, for Δ = D·C (Note 1). */
-function btCombine(st: typeof bt, dE: number, dAlpha: number, dBeta: number, dGamma: number, dEcc: number, dN: number): number {
+function keplerianCombine(st: typeof keplerianState, dE: number, dAlpha: number, dBeta: number, dGamma: number, dEcc: number, dN: number): number {
   const dD = st.dDdE * dE + st.cosEMinusE * dAlpha + st.sinE * (dBeta + dGamma) - st.alpha * dEcc;
   const dq = st.dqdE * dE + st.dqdAlpha * dAlpha + st.dqdBeta * dBeta + st.dqdEExplicit * dEcc;
   return dD * st.C + st.D * (-dN * st.q - st.n * dq);
@@ -62,19 +62,19 @@ function btCombine(st: typeof bt, dE: number, dAlpha: number, dBeta: number, dGa
 
 function keplerianPartials(c: KeplerianCompanion, days: BarycentricDays, keys: readonly string[], out: Float64Array[]): void {
   const epochDays = epochOffsetDays(c.periastronEpochMjd, days.reference);
-  const { projectedSemimajorAxisLtS: x, eccentricity: e, periodDays: pb, periodDerivative: pbDot, einsteinDelayS: gamma } = c;
+  const { projectedSemimajorAxisLtS: x, eccentricity: e, periodDays: pb, periodDerivative: periodRate, einsteinDelayS: gamma } = c;
   const rootE = Math.sqrt(1 - e * e);
   const omegaDotRadPerDay = (c.periastronAdvanceDegPerYr * RAD_PER_DEG) / DAYS_PER_JULIAN_YEAR;
   const k = {
     x: keyIndex(keys, 'projected_semimajor_axis_lt_s'), e: keyIndex(keys, 'eccentricity'), om: keyIndex(keys, 'periastron_longitude_deg'),
-    t0: keyIndex(keys, 'periastron_epoch_mjd'), pb: keyIndex(keys, 'period_days'), pbDot: keyIndex(keys, 'period_derivative'),
-    omDot: keyIndex(keys, 'periastron_advance_deg_per_yr'), gamma: keyIndex(keys, 'einstein_delay_s'), time: keyIndex(keys, TIME_RATE_KEY),
+    t0: keyIndex(keys, 'periastron_epoch_mjd'), pb: keyIndex(keys, 'period_days'), periodRate: keyIndex(keys, 'period_derivative'),
+    advance: keyIndex(keys, 'periastron_advance_deg_per_yr'), gamma: keyIndex(keys, 'einstein_delay_s'), time: keyIndex(keys, TIME_RATE_KEY),
   };
   const count: OrbitCount = { wholeOrbits: 0, fractionalOrbits: 0, elapsedDays: 0 };
   for (let i = 0; i < days.hi.length; i += 1) {
     orbitCountAt(days, i, epochDays, pb, count);
     const t = count.elapsedDays;
-    const meanAnomaly = TWO_PI * (count.fractionalOrbits - 0.5 * pbDot * (t / pb) ** 2); // as blandford-teukolsky-delay.ts
+    const meanAnomaly = TWO_PI * (count.fractionalOrbits - 0.5 * periodRate * (t / pb) ** 2); // as blandford-teukolsky-delay.ts
     const omega = c.periastronLongitudeDeg * RAD_PER_DEG + omegaDotRadPerDay * t;
     const E = solveKepler(meanAnomaly, e);
     const sinE = Math.sin(E);
@@ -84,9 +84,9 @@ function keplerianPartials(c: KeplerianCompanion, days: BarycentricDays, keys: r
     const alpha = x * sinW;
     const beta = x * rootE * cosW;
     const oneMinusECosE = 1 - e * cosE;
-    const periodNowDays = pb + pbDot * t;
+    const periodNowDays = pb + periodRate * t;
     const n = TWO_PI / (periodNowDays * SECONDS_PER_DAY);
-    const st = bt;
+    const st = keplerianState;
     st.D = alpha * (cosE - e) + (beta + gamma) * sinE;
     st.q = (beta * cosE - alpha * sinE) / oneMinusECosE;
     st.C = 1 - n * st.q;
@@ -100,48 +100,48 @@ function keplerianPartials(c: KeplerianCompanion, days: BarycentricDays, keys: r
     st.dqdAlpha = -sinE / oneMinusECosE;
     st.dqdBeta = cosE / oneMinusECosE;
     st.dqdEExplicit = ((beta * cosE - alpha * sinE) * cosE) / (oneMinusECosE * oneMinusECosE);
-    const combine = btCombine;
+    const combine = keplerianCombine;
     const dEdM = 1 / oneMinusECosE; // Kepler's equation
     // ω depends on T₀ through ω̇·(t − T₀); M and n through t − T₀
-    const dMdT0 = TWO_PI * (-1 / pb + (pbDot * t) / (pb * pb));
+    const dMdT0 = TWO_PI * (-1 / pb + (periodRate * t) / (pb * pb));
     const dOmegadT0 = -omegaDotRadPerDay;
-    const dNdT0 = (n * pbDot) / periodNowDays;
+    const dNdT0 = (n * periodRate) / periodNowDays;
     const dT0 = combine(st, dEdM * dMdT0, x * cosW * dOmegadT0, -x * rootE * sinW * dOmegadT0, 0, 0, dNdT0);
     if (k.t0 >= 0) out[k.t0][i] = dT0;
     if (k.time >= 0) out[k.time][i] = -dT0 / SECONDS_PER_DAY; // Note 2
     if (k.x >= 0) out[k.x][i] = combine(st, 0, sinW, rootE * cosW, 0, 0, 0);
     if (k.e >= 0) out[k.e][i] = combine(st, sinE / oneMinusECosE, 0, rootE > 0 ? (-x * e * cosW) / rootE : 0, 0, 1, 0);
     if (k.om >= 0) out[k.om][i] = combine(st, 0, x * cosW * RAD_PER_DEG, -x * rootE * sinW * RAD_PER_DEG, 0, 0, 0);
-    if (k.pb >= 0) out[k.pb][i] = combine(st, dEdM * TWO_PI * (-t / (pb * pb) + (pbDot * t * t) / pb ** 3), 0, 0, 0, 0, -n / periodNowDays);
-    if (k.pbDot >= 0) out[k.pbDot][i] = combine(st, dEdM * -Math.PI * (t / pb) ** 2, 0, 0, 0, 0, (-n * t) / periodNowDays);
-    if (k.omDot >= 0) {
+    if (k.pb >= 0) out[k.pb][i] = combine(st, dEdM * TWO_PI * (-t / (pb * pb) + (periodRate * t * t) / pb ** 3), 0, 0, 0, 0, -n / periodNowDays);
+    if (k.periodRate >= 0) out[k.periodRate][i] = combine(st, dEdM * -Math.PI * (t / pb) ** 2, 0, 0, 0, 0, (-n * t) / periodNowDays);
+    if (k.advance >= 0) {
       const dOmega = (RAD_PER_DEG * t) / DAYS_PER_JULIAN_YEAR;
-      out[k.omDot][i] = combine(st, 0, x * cosW * dOmega, -x * rootE * sinW * dOmega, 0, 0, 0);
+      out[k.advance][i] = combine(st, 0, x * cosW * dOmega, -x * rootE * sinW * dOmega, 0, 0, 0);
     }
     if (k.gamma >= 0) out[k.gamma][i] = combine(st, 0, 0, 0, 1, 0, 0);
   }
 }
 
 /** Per-TOA quantities of the low-eccentricity delay shared by its partials. */
-const ell = { R: 0, S: 0, n: 0, xCurvature: 0 };
+const lowEccentricityState = { R: 0, S: 0, n: 0, xCurvature: 0 };
 
 /** ∂Δ for Δ = R(1 − nS): dΔ = dR(1 − nS) − R(dn·S + n·dS), R and S moving with Φ too (Note 1). */
-function ellCombine(st: typeof ell, dPhi: number, dR: number, dS: number, dN: number): number {
+function lowEccentricityCombine(st: typeof lowEccentricityState, dPhi: number, dR: number, dS: number, dN: number): number {
   return (dR + st.S * dPhi) * (1 - st.n * st.S) - st.R * (dN * st.S + st.n * (dS + st.xCurvature * dPhi));
 }
 
 function lowEccentricityPartials(c: LowEccentricityCompanion, days: BarycentricDays, keys: readonly string[], out: Float64Array[]): void {
   const epochDays = epochOffsetDays(c.ascendingNodeEpochMjd, days.reference);
-  const { projectedSemimajorAxisLtS: x, eSinOmega: eta, eCosOmega: kappa, periodDays: pb, periodDerivative: pbDot } = c;
+  const { projectedSemimajorAxisLtS: x, eSinOmega: eta, eCosOmega: kappa, periodDays: pb, periodDerivative: periodRate } = c;
   const k = {
     x: keyIndex(keys, 'projected_semimajor_axis_lt_s'), eta: keyIndex(keys, 'e_sin_omega'), kappa: keyIndex(keys, 'e_cos_omega'),
-    tasc: keyIndex(keys, 'ascending_node_epoch_mjd'), pb: keyIndex(keys, 'period_days'), pbDot: keyIndex(keys, 'period_derivative'), time: keyIndex(keys, TIME_RATE_KEY),
+    tasc: keyIndex(keys, 'ascending_node_epoch_mjd'), pb: keyIndex(keys, 'period_days'), periodRate: keyIndex(keys, 'period_derivative'), time: keyIndex(keys, TIME_RATE_KEY),
   };
   const count: OrbitCount = { wholeOrbits: 0, fractionalOrbits: 0, elapsedDays: 0 };
   for (let i = 0; i < days.hi.length; i += 1) {
     orbitCountAt(days, i, epochDays, pb, count);
     const t = count.elapsedDays;
-    const phi = TWO_PI * (count.fractionalOrbits - 0.5 * pbDot * (t / pb) ** 2); // as low-eccentricity-delay.ts
+    const phi = TWO_PI * (count.fractionalOrbits - 0.5 * periodRate * (t / pb) ** 2); // as low-eccentricity-delay.ts
     const s1 = Math.sin(phi);
     const c1 = Math.cos(phi);
     const s2 = 2 * s1 * c1;
@@ -149,24 +149,24 @@ function lowEccentricityPartials(c: LowEccentricityCompanion, days: BarycentricD
     const shape = s1 + 0.5 * kappa * s2 - 0.5 * eta * c2; // R/x
     const slope = c1 + kappa * c2 + eta * s2; // (dR/dΦ)/x
     const curvature = -s1 - 2 * kappa * s2 + 2 * eta * c2; // (d²R/dΦ²)/x
-    const periodNowDays = pb + pbDot * t;
+    const periodNowDays = pb + periodRate * t;
     const n = TWO_PI / (periodNowDays * SECONDS_PER_DAY);
     const R = x * shape;
     const S = x * slope;
     // Δ = R(1 − nS): dΔ = dR(1 − nS) − R(dn·S + n·dS), with R, S depending on Φ, x, η, κ (Note 1)
-    const st = ell;
+    const st = lowEccentricityState;
     st.R = R;
     st.S = S;
     st.n = n;
     st.xCurvature = x * curvature;
-    const combine = ellCombine;
-    const dTasc = combine(st, TWO_PI * (-1 / pb + (pbDot * t) / (pb * pb)), 0, 0, (n * pbDot) / periodNowDays);
+    const combine = lowEccentricityCombine;
+    const dTasc = combine(st, TWO_PI * (-1 / pb + (periodRate * t) / (pb * pb)), 0, 0, (n * periodRate) / periodNowDays);
     if (k.tasc >= 0) out[k.tasc][i] = dTasc;
     if (k.time >= 0) out[k.time][i] = -dTasc / SECONDS_PER_DAY; // Note 2
     if (k.x >= 0) out[k.x][i] = combine(st, 0, shape, slope, 0);
     if (k.eta >= 0) out[k.eta][i] = combine(st, 0, -0.5 * x * c2, x * s2, 0);
     if (k.kappa >= 0) out[k.kappa][i] = combine(st, 0, 0.5 * x * s2, x * c2, 0);
-    if (k.pb >= 0) out[k.pb][i] = combine(st, TWO_PI * (-t / (pb * pb) + (pbDot * t * t) / pb ** 3), 0, 0, -n / periodNowDays);
-    if (k.pbDot >= 0) out[k.pbDot][i] = combine(st, -Math.PI * (t / pb) ** 2, 0, 0, (-n * t) / periodNowDays);
+    if (k.pb >= 0) out[k.pb][i] = combine(st, TWO_PI * (-t / (pb * pb) + (periodRate * t * t) / pb ** 3), 0, 0, -n / periodNowDays);
+    if (k.periodRate >= 0) out[k.periodRate][i] = combine(st, -Math.PI * (t / pb) ** 2, 0, 0, (-n * t) / periodNowDays);
   }
 }
