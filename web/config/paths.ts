@@ -18,6 +18,14 @@ export const paths = {
   pulsars: { path: '/pulsars', href: () => '/pulsars' },
   pulsar: { path: '/pulsars/:id', href: (id: string) => `/pulsars/${encodeURIComponent(id)}` },
   pulsarUpload: { path: '/pulsars/:id/upload', href: (id: string) => `/pulsars/${encodeURIComponent(id)}/upload` },
+  pulsarModel: {
+    path: '/pulsars/:id/model',
+    href: (id: string, revisionId?: number | string) =>
+      `/pulsars/${encodeURIComponent(id)}/model${revisionId === undefined ? '' : `?revision=${encodeURIComponent(String(revisionId))}`}`,
+  },
+  campaigns: { path: '/campaigns', href: () => '/campaigns' },
+  campaign: { path: '/campaigns/:id', href: (id: string | number) => `/campaigns/${encodeURIComponent(String(id))}` },
+  pulsarUpload: { path: '/pulsars/:id/upload', href: (id: string) => `/pulsars/${encodeURIComponent(id)}/upload` },
   pulsarModel: { path: '/pulsars/:id/model', href: (id: string) => `/pulsars/${encodeURIComponent(id)}/model` },
   fitRun: { path: '/fit-runs/:id', href: (id: string) => `/fit-runs/${encodeURIComponent(id)}` },
   observatories: { path: '/observatories', href: () => '/observatories' },
