@@ -8,6 +8,9 @@ import type { core } from 'zod';
 export interface ErrorDetail {
   path: (string | number)[];
   message: string;
+  line?: number | null; // file problems (invalid_toa_file): 1-based line, null for the whole file
+  column?: string | null; // file problems: column name, null for the whole line or file
+  existingBatchId?: number; // duplicate_upload: the stored batch with the same checksum
 }
 
 export class AppError extends Error {

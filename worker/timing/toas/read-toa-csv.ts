@@ -28,6 +28,7 @@ export type ToaFileResult =
 export interface ReadToaCsvOptions {
   knownObservatories: ReadonlySet<string>; // registered codes (`ssb`, `geocenter` are always accepted)
   maxErrors?: number; // errors listed in the result (default 100); all are counted
+  keepMjdText?: boolean; // also keep each row's MJD text in `Toa.mjdText` (for lossless storage of every digit)
 }
 
 export const REQUIRED_TOA_COLUMNS = ['mjd', 'uncertainty_us', 'frequency_mhz', 'observatory'] as const;
@@ -103,7 +104,8 @@ function positiveNumber(text: string, unit: string): number | string {
   return x;
 }
 
-function readRow(fields: string[], layout: HeaderLayout, line: number, row: number, known: ReadonlySet<string>, errors: ErrorList): Toa | null {
+function readRow(fields: string[], layout: HeaderLayout, line: number, row: number, options: ReadToaCsvOptions, errors: ErrorList): Toa | null {
+  const known = options.knownObservatories;
   const before = errors.count;
   const { index } = layout;
 
@@ -146,7 +148,7 @@ function readRow(fields: string[], layout: HeaderLayout, line: number, row: numb
   if (errors.count > before || mjd === null) return null;
   const labels: Record<string, string> = {};
   for (const i of layout.labelIndex) labels[layout.columns[i]] = fields[i];
-  return {
+  const toa: Toa = {
     row,
     line,
     mjd,
@@ -157,6 +159,8 @@ function readRow(fields: string[], layout: HeaderLayout, line: number, row: numb
     pulseNumber,
     labels,
   };
+  if (options.keepMjdText === true) toa.mjdText = mjdText;
+  return toa;
 }
 
 /**
@@ -216,7 +220,7 @@ export function readToaCsv(input: string | Uint8Array, options: ReadToaCsvOption
       errors.add(lineNumber, null, `${which} fields: found ${split.fields.length}, the header has ${header.columns.length}`);
       continue;
     }
-    const toa = readRow(split.fields, header, lineNumber, row, options.knownObservatories, errors);
+    const toa = readRow(split.fields, header, lineNumber, row, options, errors);
     if (toa !== null && errors.count === 0) toas.push(toa);
   }
   if (!headerSeen) {

@@ -11,4 +11,5 @@ export interface Toa {
   backend: string; // default 'default'
   pulseNumber: number | null; // integer, may exceed 2^53? no: |N| < 2^53 is checked
   labels: Record<string, string>; // unknown columns, kept verbatim
+  mjdText?: string; // the `mjd` field exactly as written in the file (only when the reader is asked to keep it)
 }
