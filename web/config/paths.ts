@@ -17,7 +17,6 @@ export const paths = {
   dashboard: { path: '/', href: () => '/' },
   pulsars: { path: '/pulsars', href: () => '/pulsars' },
   pulsar: { path: '/pulsars/:id', href: (id: string) => `/pulsars/${encodeURIComponent(id)}` },
-  pulsarUpload: { path: '/pulsars/:id/upload', href: (id: string) => `/pulsars/${encodeURIComponent(id)}/upload` },
   pulsarModel: {
     path: '/pulsars/:id/model',
     href: (id: string, revisionId?: number | string) =>
@@ -26,7 +25,6 @@ export const paths = {
   campaigns: { path: '/campaigns', href: () => '/campaigns' },
   campaign: { path: '/campaigns/:id', href: (id: string | number) => `/campaigns/${encodeURIComponent(String(id))}` },
   pulsarUpload: { path: '/pulsars/:id/upload', href: (id: string) => `/pulsars/${encodeURIComponent(id)}/upload` },
-  pulsarModel: { path: '/pulsars/:id/model', href: (id: string) => `/pulsars/${encodeURIComponent(id)}/model` },
   fitRun: { path: '/fit-runs/:id', href: (id: string) => `/fit-runs/${encodeURIComponent(id)}` },
   observatories: { path: '/observatories', href: () => '/observatories' },
   users: { path: '/users', href: () => '/users' },
