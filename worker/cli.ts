@@ -16,7 +16,7 @@ import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { TimingInputError } from './timing/engine-error';
 import { readModelText } from './timing/model/read-model-file';
-import { writeModelFile } from './timing/model/write-model-file';
+import { fitReportJson } from './timing/run-timing-fit';
 import type { TimingModel } from './timing/model/timing-model';
 import { readToaCsv, formatToaFileErrors } from './timing/toas/read-toa-csv';
 import { writeToaCsv } from './timing/toas/write-toa-csv';
@@ -104,25 +104,7 @@ function runFit(args: string[]): Output {
     ? undefined
     : parseNumberOption('fit', 'max-iterations', values['max-iterations'] as string, (x) => Number.isInteger(x) && x >= 1, 'a whole number ≥ 1');
   const fit = fitTimingModel(model, toas, observatories, { maxIterations, includeJupiterShapiro: values['jupiter-shapiro'] === true });
-  const parameters: Record<string, { value: string; uncertainty: number; unit: string }> = {};
-  for (const [path, p] of Object.entries(fit.parameters)) parameters[path] = { value: p.value, uncertainty: p.uncertainty, unit: p.fileUnit };
-  const output = {
-    model: writeModelFile(fit.model),
-    parameters,
-    chi2: fit.chi2,
-    dof: fit.dof,
-    reduced_chi2: fit.reducedChi2,
-    weighted_rms_us: fit.weightedRmsUs,
-    residuals: fit.residuals.map((r) => ({ row: r.row, residual_us: r.residualUs, uncertainty_us: r.uncertaintyUs })),
-    converged: fit.converged,
-    iterations: fit.iterations,
-    phase_offset_turns: fit.phaseOffsetTurns,
-    condition_number: fit.conditionNumber,
-    uncertainties_scaled_by_reduced_chi2: false,
-    warnings: fit.warnings,
-    settings: fit.settings,
-    ephemeris: fit.ephemeris,
-  };
+  const output = fitReportJson(fit);
   const stdout = `${JSON.stringify(output, null, 2)}\n`;
   if (!fit.converged) {
     return { stdout, exitCode: 2, stderr: `fit: did not converge after ${fit.iterations} iterations; last χ² = ${fit.chi2}` };
