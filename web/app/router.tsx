@@ -49,6 +49,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { index: true, ...page(() => import('./routes/dashboard')) },
             { path: paths.pulsars.path, ...page(() => import('./routes/pulsars')) },
             { path: paths.pulsar.path, ...page(() => import('./routes/pulsar')) },
+            { path: paths.fitRun.path, ...page(() => import('./routes/fit-run')) },
             { path: paths.pulsarUpload.path, ...page(() => import('./routes/upload')) },
             { path: paths.observatories.path, ...page(() => import('./routes/observatories')) },
             { path: paths.users.path, ...page(() => import('./routes/users')) },
