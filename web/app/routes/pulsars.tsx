@@ -24,7 +24,7 @@ export default function PulsarsRoute() {
   const pulsars = usePulsars();
   const canCreate = hasPermission(me.data, PERMISSIONS.createPulsars);
   return (
-    <Page title="Pulsars" description="Every pulsar your group times, with its TOA count and time span.">
+    <Page title="Pulsars" description="Every pulsar your group times, with its TOAs, time span and latest fit.">
       <div className={canCreate ? 'grid grid-cols-1 gap-6 lg:grid-cols-[1fr_20rem]' : undefined}>
         <div>
           {pulsars.isPending ? (

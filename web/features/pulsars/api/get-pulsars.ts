@@ -1,6 +1,15 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 
+/** The newest fit of a pulsar as the pulsar list carries it (docs/api-workflow.md, "Pulsars list additions"). */
+export interface LatestFit {
+  id: number;
+  status: 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
+  reducedChi2: number | null;
+  weightedRmsUs: number | null;
+  finishedAt: string | null;
+}
+
 export interface Pulsar {
   id: string | number;
   name: string;
@@ -13,6 +22,9 @@ export interface Pulsar {
   createdAt: string;
   /** When the toa-statistics job last wrote the counts; null before its first run. */
   statisticsUpdatedAt?: string | null;
+  /** Absent from servers older than the data-workflow issue. */
+  latestFit?: LatestFit | null;
+  revisionCount?: number;
 }
 
 export const pulsarKeys = {

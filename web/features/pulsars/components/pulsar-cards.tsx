@@ -1,9 +1,21 @@
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
-import { formatCount, formatMjd } from '../../../lib/format';
+import { formatCount, formatDateTimeUtc, formatMjd } from '../../../lib/format';
 import type { Pulsar } from '../api/get-pulsars';
 
-/** Dashboard overview: one card per pulsar with its TOA count, time span and observatories. */
+function LatestFitLine({ fit }: { fit: Pulsar['latestFit'] }) {
+  if (!fit) return <dd className="text-night-300">no fit yet</dd>;
+  if (fit.status !== 'succeeded') return <dd className="text-night-200">{fit.status === 'running' ? 'fitting…' : `fit ${fit.status}`}</dd>;
+  return (
+    <dd className="font-mono text-night-200">
+      χ²/dof {fit.reducedChi2 === null ? '—' : fit.reducedChi2.toPrecision(3)} · RMS{' '}
+      {fit.weightedRmsUs === null ? '—' : `${fit.weightedRmsUs.toPrecision(3)} µs`}
+      {fit.finishedAt ? <span className="block font-sans text-xs text-night-400">{formatDateTimeUtc(fit.finishedAt)}</span> : null}
+    </dd>
+  );
+}
+
+/** Dashboard overview: one card per pulsar with its TOA count, time span, observatories and latest fit. */
 export function PulsarCards({ pulsars }: { pulsars: Pulsar[] }) {
   return (
     <ul className="grid grid-cols-1 gap-4 sm:grid-cols-2 xl:grid-cols-3" aria-label="Pulsars">
@@ -31,6 +43,10 @@ export function PulsarCards({ pulsars }: { pulsars: Pulsar[] }) {
                 <dd className="font-mono text-night-200">
                   {p.firstMjd === null ? 'no TOAs yet' : `${formatMjd(p.firstMjd)} – ${formatMjd(p.lastMjd)}`}
                 </dd>
+              </div>
+              <div className="col-span-2">
+                <dt className="text-xs text-night-400">Latest fit</dt>
+                <LatestFitLine fit={p.latestFit} />
               </div>
             </dl>
           </Link>
