@@ -26,6 +26,9 @@ import { addObservatoryRoutes } from './routes/observatories/router';
 import { addOutboxRoutes } from './routes/outbox/router';
 import { addPulsarRoutes } from './routes/pulsars/router';
 import { RouteTable } from './routes/route-table';
+import { addExclusionRoutes } from './routes/exclusions/router';
+import { addToaBatchRoutes } from './routes/toa-batches/router';
+import { addToaRoutes } from './routes/toas/router';
 import { addUserRoutes } from './routes/users/router';
 
 export const SESSION_COOKIE_NAME = 'pk.sid';
@@ -107,6 +110,9 @@ export function createApp(deps: AppDeps): Application {
   addObservatoryRoutes(routes, deps);
   addPulsarRoutes(routes, deps);
   addJobRoutes(routes, deps);
+  addToaBatchRoutes(routes, deps);
+  addToaRoutes(routes, deps);
+  addExclusionRoutes(routes, deps);
   addCampaignRoutes(routes, deps);
   addNotificationRoutes(routes, deps);
   app.use('/api', apiNotFound);
