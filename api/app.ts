@@ -25,6 +25,8 @@ import { addNotificationRoutes } from './routes/notifications/router';
 import { addObservatoryRoutes } from './routes/observatories/router';
 import { addOutboxRoutes } from './routes/outbox/router';
 import { addPulsarRoutes } from './routes/pulsars/router';
+import { addFitRunRoutes } from './routes/fit-runs/router';
+import { addRevisionRoutes } from './routes/revisions/router';
 import { RouteTable } from './routes/route-table';
 import { addExclusionRoutes } from './routes/exclusions/router';
 import { addToaBatchRoutes } from './routes/toa-batches/router';
@@ -113,6 +115,8 @@ export function createApp(deps: AppDeps): Application {
   addToaBatchRoutes(routes, deps);
   addToaRoutes(routes, deps);
   addExclusionRoutes(routes, deps);
+  addRevisionRoutes(routes, deps);
+  addFitRunRoutes(routes, deps);
   addCampaignRoutes(routes, deps);
   addNotificationRoutes(routes, deps);
   app.use('/api', apiNotFound);
