@@ -59,6 +59,7 @@ const columns = [
     id: 'span',
     header: 'Span (MJD)',
     sortingFn: (a, b) => compareMjd(a.original.firstMjd, b.original.firstMjd),
+    sortDescFirst: false,
     sortUndefined: 'last',
     cell: ({ row }) => (
       <span className="font-mono text-night-200">
@@ -71,12 +72,14 @@ const columns = [
     id: 'reducedChi2',
     header: 'Reduced χ²',
     sortUndefined: 'last',
+    sortDescFirst: false, // best-fitting first
     cell: (i) => <span className="font-mono tabular-nums">{fixed3(i.getValue())}</span>,
   }),
   column.accessor((p) => p.latestFit?.weightedRmsUs ?? undefined, {
     id: 'rms',
     header: 'RMS (µs)',
     sortUndefined: 'last',
+    sortDescFirst: false,
     cell: (i) => <span className="font-mono tabular-nums">{fixed3(i.getValue())}</span>,
   }),
   column.accessor((p) => p.latestFit?.finishedAt ?? undefined, {
