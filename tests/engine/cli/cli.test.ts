@@ -25,7 +25,8 @@ function expectOneLineError(run: Run, pattern: RegExp): void {
   expect(lines[0]).toMatch(pattern);
 }
 
-describe.concurrent('command line', () => {
+// Each spawn starts tsx and loads DE405 (~3–5 s of CPU); under a loaded 2-core machine allow minutes.
+describe.concurrent('command line', { timeout: 240_000 }, () => {
   it('fit (through npm run --silent cli) prints the documented JSON keys and converges on the demo files', async () => {
     const run = await cli(['fit', '--toas', `${FIXTURES}/demo-toas.csv`, '--model', `${FIXTURES}/demo-model.json`], ['npm', ['run', '--silent', 'cli', '--']]);
     expect(run.stderr).toBe('');

@@ -8,7 +8,7 @@ import type { Toa } from '../toas/toa';
 import type { ArrivalGeometry } from '../pipeline/arrival-geometry';
 import type { Mjd } from '../time/epoch';
 import { TimingInputError } from '../engine-error';
-import { createSeededNormal } from '../fit/seeded-normal';
+import { createSeededNormal, createSeededUniform } from '../fit/seeded-normal';
 import { mjdAddDays, mjdAddSeconds, mjdDiffDays } from '../time/mjd-arithmetic';
 import { prepareArrivals } from '../pipeline/prepared-arrivals';
 import { computeTimingResiduals } from '../pipeline/timing-residuals';
@@ -42,8 +42,10 @@ export interface SimulationResult {
 /** Residual at which the noise-free times count as on the model (1e-11 s). */
 const TARGET_RESIDUAL_S = 1e-11;
 const MAX_ITERATIONS = 12;
-/** Start times are shifted by this many spacings × N(0, 1), clipped to ±0.4 (Note 1). */
-const START_JITTER_SPACINGS = 0.2;
+/** Start times are shifted by up to ± this fraction of the spacing, uniformly (Note 1). */
+const START_JITTER_SPACINGS = 0.3;
+/** Mixed into the seed for the jitter stream, so jitter and noise come from different sequences. */
+const JITTER_SEED_MIX = 0x9e3779b9; // 2^32/φ, the usual odd constant for decorrelating seeds (Knuth, TAOCP vol. 3, §6.4)
 
 /**
  * TOAs whose noise-free times lie on the model, plus N(0, σ²) noise.
@@ -53,8 +55,8 @@ const START_JITTER_SPACINGS = 0.2;
  * @param geometryOf       computes the arrival geometry of a TOA set (computeArrivalGeometry)
  * @returns                TOAs (rows 1…count, time-ordered), the final noise-free residual, warnings
  *
- * Notes: 1. Start: evenly spaced times over [start, end], each moved by a seeded jitter of up to
- *           0.4 of the spacing, so the sampling has no exact period.
+ * Notes: 1. Start: evenly spaced times over [start, end], each moved by a seeded uniform jitter of
+ *           up to ±0.3 of the spacing, so the sampling has no exact period.
  *        2. Iteration: evaluate the residual r (observed − model) and move each time by −r, keeping
  *           the pulse numbers of the first pass; since d(t_bary)/d(t_obs) = 1 + O(1e-4), each pass
  *           shrinks r by ~1e4, and the loop stops when max |r| < 1e-11 s (two or three passes).
@@ -69,11 +71,12 @@ export function simulateArrivals(
 ): SimulationResult {
   checkRequest(request);
   const draw = createSeededNormal(request.seed ?? 1);
+  const jitterDraw = createSeededUniform(((request.seed ?? 1) ^ JITTER_SEED_MIX) >>> 0);
   const spanDays = mjdDiffDays(request.endMjd, request.startMjd);
   const span = spanDays[1] + spanDays[0];
   const toas: Toa[] = [];
   for (let i = 0; i < request.count; i += 1) {
-    const jitter = request.count > 1 ? Math.max(-0.4, Math.min(0.4, START_JITTER_SPACINGS * draw())) : 0;
+    const jitter = request.count > 1 ? START_JITTER_SPACINGS * (2 * jitterDraw() - 1) : 0;
     const position = request.count > 1 ? (i + 0.5 + jitter) / request.count : 0.5; // Note 1
     toas.push({
       row: i + 1,
