@@ -1,7 +1,8 @@
 /**
  * Demo data for `npm start` (dev profile only): the invented "Fenmarsh Pulsar
  * Group" with one account per role, the engine's fictional built-in
- * observatories and a few invented pulsars at random positions. Idempotent:
+ * observatories, four invented pulsars with simulated TOAs and starting models
+ * (api/db/demo-scenario/). Idempotent:
  * rows that exist (by e-mail, code, name) are left as they are.
  */
 import type { Knex } from 'knex';
@@ -9,6 +10,8 @@ import { builtinObservatories } from '../../worker/timing/earth/builtin-observat
 import { hashPassword } from '../auth/passwords';
 import type { Role } from '../auth/permissions';
 import { observatoryColumns, replaceClockCorrections } from './observatories';
+import { DEMO_PULSAR_POSITIONS } from './demo-scenario/demo-pulsars';
+import { seedDemoTiming } from './demo-scenario/seed-demo-timing';
 
 export interface DemoSignIn {
   email: string;
@@ -25,12 +28,9 @@ const DEMO_USERS: (DemoSignIn & { displayName: string })[] = [
   { role: 'admin', email: 'admin@pulsekeeper.test', password: 'fenmarsh-admin-demo', displayName: 'Adam Reedbank (administrator)' },
 ];
 
-// Invented names and positions (random points on the sky, not catalogue sources).
-const DEMO_PULSARS = [
-  { name: 'FPG-J0412+2733', ra_hms: '04:12:37.2518', dec_dms: '+27:33:12.804' },
-  { name: 'FPG-J1517-0654', ra_hms: '15:17:05.9032', dec_dms: '-06:54:48.117' },
-  { name: 'FPG-J2208+4121', ra_hms: '22:08:51.4470', dec_dms: '+41:21:03.590' },
-];
+// Invented names and positions (random points on the sky, not catalogue sources): the demo timing
+// scenario's pulsars (api/db/demo-scenario/demo-pulsars.ts).
+const DEMO_PULSARS = DEMO_PULSAR_POSITIONS;
 
 export async function seedDemo(knex: Knex): Promise<{ users: DemoSignIn[] }> {
   for (const user of DEMO_USERS) {
@@ -54,5 +54,9 @@ export async function seedDemo(knex: Knex): Promise<{ users: DemoSignIn[] }> {
     if (await knex('pulsars').where({ name: pulsar.name }).first('id')) continue;
     await knex('pulsars').insert({ ...pulsar, created_by: lead?.id ?? null });
   }
+  // simulated TOAs (uploaded by the observer) and starting models (authored by the analyst)
+  const observer = await knex('users').where({ email: 'observer@pulsekeeper.test' }).first('id');
+  const analyst = await knex('users').where({ email: 'analyst@pulsekeeper.test' }).first('id');
+  await seedDemoTiming(knex, { uploaderId: Number(observer.id), authorId: Number(analyst.id) });
   return { users: DEMO_USERS.map(({ email, password, role }) => ({ email, password, role })) };
 }

@@ -23,6 +23,7 @@ export interface DemoBatch {
 
 export interface DemoPulsarData {
   name: string;
+  /** catalogue position for the pulsars table: the starting model's, as written in the plan */
   raHms: string;
   decDms: string;
   description: string;
@@ -76,7 +77,7 @@ function buildDemoPulsar(plan: DemoPulsarPlan, observatories: ReadonlyMap<string
     });
     return { fileName: batch.fileName, csv, rowCount: toas.length };
   });
-  const astrometry = startingModel.astrometry as { ra_hms: string; dec_dms: string };
+  const astrometry = plan.startingModel.astrometry as { ra_hms: string; dec_dms: string }; // the text as planned
   return {
     name: plan.name,
     raHms: astrometry.ra_hms,
