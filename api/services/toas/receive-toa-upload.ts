@@ -1,8 +1,8 @@
 /**
  * Receives a multipart/form-data TOA upload as it streams in: the `file` part
  * is collected in memory chunks up to a hard byte limit (busboy's
- * limits.fileSize) and hashed with SHA-256 on the way; the only other field
- * is `confirmDuplicate`. An oversized file is drained and answered 413 with
+ * limits.fileSize stops the stream one byte past it) and hashed with SHA-256
+ * on the way; the only other field is `confirmDuplicate`. An oversized file is drained and answered 413 with
  * nothing kept.
  */
 import busboy from 'busboy';
@@ -20,7 +20,8 @@ export interface ReceivedToaUpload {
 const FIELD_LIMIT_BYTES = 1024;
 
 function tooLarge(maxBytes: number): AppError {
-  return new AppError(413, 'payload_too_large', `the file is larger than ${(maxBytes / (1024 * 1024)).toFixed(maxBytes < 1024 * 1024 ? 3 : 0)} MB (${maxBytes} bytes), the upload limit`);
+  const mib = maxBytes / (1024 * 1024);
+  return new AppError(413, 'payload_too_large', `the file is larger than the upload limit of ${maxBytes} bytes (${Number(mib.toFixed(3))} MiB)`);
 }
 
 /**
@@ -37,7 +38,7 @@ export function receiveToaUpload(req: Request, maxBytes: number): Promise<Receiv
   return new Promise((resolve, reject) => {
     let parser: busboy.Busboy;
     try {
-      parser = busboy({ headers: req.headers, limits: { fileSize: maxBytes, files: 1, fields: 4, fieldSize: FIELD_LIMIT_BYTES, parts: 5 } });
+      parser = busboy({ headers: req.headers, limits: { fileSize: maxBytes + 1, files: 1, fields: 4, fieldSize: FIELD_LIMIT_BYTES, parts: 5 } });
     } catch {
       reject(fieldError([], 'expected a multipart/form-data body with a "file" part'));
       return;
@@ -45,7 +46,8 @@ export function receiveToaUpload(req: Request, maxBytes: number): Promise<Receiv
     const chunks: Buffer[] = [];
     const hash = createHash('sha256');
     let fileName: string | null = null;
-    let truncated = false;
+    let receivedBytes = 0;
+    let truncated = false; // more than maxBytes arrived (busboy stops at maxBytes + 1)
     let problem: AppError | null = null;
     let confirmDuplicate = false;
     let settled = false;
@@ -62,12 +64,14 @@ export function receiveToaUpload(req: Request, maxBytes: number): Promise<Receiv
       fileName = info.filename || 'upload.csv';
       stream.on('data', (chunk: Buffer) => {
         if (truncated) return;
+        receivedBytes += chunk.length;
+        if (receivedBytes > maxBytes) {
+          truncated = true;
+          chunks.length = 0; // nothing of an oversized file is kept
+          return;
+        }
         chunks.push(chunk);
         hash.update(chunk);
-      });
-      stream.on('limit', () => {
-        truncated = true;
-        chunks.length = 0; // nothing of an oversized file is kept
       });
     });
     parser.on('field', (name, value, info) => {
