@@ -8,12 +8,15 @@ import { loadConfig } from '../api/config';
 import { JOB_TYPES, QUEUE_NAME } from '../api/contracts/queues';
 import { createWorkerKnex } from './db';
 import { processToaStatistics } from './jobs/toa-statistics';
+import { processFitRun } from './jobs/fit-run';
+import { workerLockOptions } from './jobs/fit-run-worker-options';
 
 export function startWorker(config = loadConfig()) {
   const knex = createWorkerKnex(config);
   const connection = new IORedis({ host: config.redis.host, port: config.redis.port, maxRetriesPerRequest: null });
   const processors: Record<string, (job: Job) => Promise<unknown>> = {
     [JOB_TYPES.toaStatistics]: (job) => processToaStatistics(job, { knex }),
+    [JOB_TYPES.fitRun]: (job) => processFitRun(job, { knex }),
   };
   const worker = new Worker(
     QUEUE_NAME,
@@ -22,7 +25,7 @@ export function startWorker(config = loadConfig()) {
       if (!processor) throw new Error(`unknown job type "${job.name}"`);
       return processor(job);
     },
-    { connection, concurrency: config.worker.concurrency },
+    { connection, concurrency: config.worker.concurrency, ...workerLockOptions() },
   );
   worker.on('failed', (job, err) => {
     if (job && job.attemptsMade >= (job.opts.attempts ?? 1)) {
