@@ -118,9 +118,7 @@ export function computeTimingResiduals(model: TimingModel, prepared: PreparedArr
     evaluation.barycentricFrequencyMhz[i] = fBary;
     evaluation.offsetS[i] = offsetByIndex[prepared.backendIndex[i]];
     // Note 1: t_b − epoch in days, double-double (the offset is kept out: it is applied with the companions)
-    const baryDays = ddAddNumber([prepared.tdbDaysLo[i], prepared.tdbDaysHi[i]], (roemer - shapiro - dispersion) / SECONDS_PER_DAY);
-    days.hi[i] = baryDays[1];
-    days.lo[i] = baryDays[0];
+    addDoubleInto(prepared.tdbDaysHi[i], prepared.tdbDaysLo[i], (roemer - shapiro - dispersion) / SECONDS_PER_DAY, days, i);
   }
   evaluation.companionS.set(companionDelaysFromDaysS(model.companions, days));
   phaseResiduals(prepareSpin(model), evaluation, prepared, options);
@@ -156,6 +154,20 @@ export function phaseResiduals(spin: PreparedSpin, evaluation: TimingEvaluation,
     evaluation.frequencyHz[i] = value.frequencyHz;
     evaluation.residualS[i] = turns / value.frequencyHz; // Note 3
   }
+}
+
+/**
+ * (hi + lo) + x as a normalised double-double written to days.hi[i], days.lo[i], without allocating:
+ * Knuth's two-sum of the large parts, then the small part and a fast renormalisation
+ * (Knuth 1969, TAOCP vol. 2, §4.2.2; Dekker 1971, Numer. Math. 18, 224).
+ */
+function addDoubleInto(hi: number, lo: number, x: number, days: BarycentricDays, i: number): void {
+  const sum = hi + x;
+  const xVirtual = sum - hi;
+  const error = (hi - (sum - xVirtual)) + (x - xVirtual) + lo;
+  const outHi = sum + error;
+  days.hi[i] = outHi;
+  days.lo[i] = error - (outHi - sum);
 }
 
 function allocateEvaluation(n: number, prepared: PreparedArrivals): TimingEvaluation {
