@@ -110,6 +110,15 @@ describe('demo scenario: the simulated data', () => {
     expect(again.map((p) => p.batches.map((b) => b.csv))).toEqual(scenario.map((p) => p.batches.map((b) => b.csv)));
   });
 
+  it.each(DEMO_PULSAR_PLANS.map((p, i) => [p.name, i] as const))('%s: the STARTING model is still phase-connected (|residual| < 0.3 turn)', (_name, i) => {
+    const { data, toas } = pulsar(i);
+    const periodUs = 1e6 / Number((data.startingModel.spin as { frequency_hz: string }).frequency_hz);
+    const unfitted = fitWith(data.startingModel, toas, []);
+    const worstUs = Math.max(...unfitted.residuals.map((r) => Math.abs(r.residualUs)));
+    expect(worstUs).toBeLessThan(0.3 * periodUs); // nearest-pulse numbering is right (docs/timing.md §6)
+    expect(worstUs).toBeGreaterThan(10 * Math.min(...unfitted.residuals.map((r) => r.uncertaintyUs))); // but visibly imperfect
+  });
+
   it.each(DEMO_PULSAR_PLANS.map((p, i) => [p.name, i] as const))('%s: the TRUE model fits its TOAs with reduced χ² ≈ 1', (_name, i) => {
     const { data, toas } = pulsar(i);
     expectWhite(fitWith(data.trueModel, toas, []), 'true model');

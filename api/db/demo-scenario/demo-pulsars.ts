@@ -94,7 +94,7 @@ const young: DemoPulsarPlan = {
     offsets: NARROWBAND_OFFSET_START,
     solve_for: ['spin.frequency_hz', 'dispersion.dm_pc_per_cm3'],
   }),
-  baseUncertaintyUs: 110,
+  baseUncertaintyUs: 100,
   blocks: observingBlocks(1),
   batches: batchPlans(YOUNG),
   seedBase: 101,
@@ -173,14 +173,15 @@ const hidden: DemoPulsarPlan = {
     offsets: NARROWBAND_OFFSET_START,
     solve_for: ['spin.frequency_hz', 'spin.frequency_derivatives[0]', 'astrometry.ra_hms', 'astrometry.dec_dms', 'dispersion.dm_pc_per_cm3'],
   }),
-  baseUncertaintyUs: 0.7,
+  baseUncertaintyUs: 0.6,
   blocks: observingBlocks(1.1),
   batches: batchPlans(HIDDEN),
   seedBase: 301,
 };
 
 // 4. A pulsar whose starting position is ~25 mas off (RA by 1.4 ms of time, Dec by 15 mas):
-//    an annual wave of ~60 µs (Roemer delay: 499 s × the angle in radians).
+//    an annual wave of ~50 µs: the Roemer delay r·n̂/c (docs/formats.md §4) changes by up to
+//    1 au/c ≈ 499 s times the angle in radians (1 au/c: IAU 2012 au and the defined c).
 const OFFSKY = 'FPG-J1839-1127';
 const offskyTrueAstrometry = { ra_hms: '18:39:14.77310', dec_dms: '-11:27:35.0620', pm_ra_cosdec_mas_per_yr: -1.7, pm_dec_mas_per_yr: -6.3, parallax_mas: 0 };
 const offsky: DemoPulsarPlan = {
