@@ -203,6 +203,28 @@ describe('pulsar page', () => {
     expect(server.callsTo('PUT', '/api/pulsars/4/notification')[0].body).toEqual({ subscribed: true });
   });
 
+  it('polls the fit runs while one is unfinished, then stops and refreshes the pulsar', async () => {
+    let listPolls = 0;
+    const server = mockApi(
+      routes({
+        'GET /api/pulsars/:id/fit-runs': () => {
+          listPolls += 1;
+          return ok(listPolls < 3 ? RUNS : [run(22, 'succeeded'), run(21, 'succeeded')]);
+        },
+      }),
+    );
+    renderApp('/pulsars/4');
+    const runs = await screen.findByRole('table', { name: 'Fit runs' });
+    expect(within(runs).getByRole('progressbar', { name: 'Progress of run #22' })).toBeTruthy();
+    await waitFor(() => expect(within(screen.getByRole('table', { name: 'Fit runs' })).queryByRole('progressbar')).toBeNull(), { timeout: 5000 });
+    await waitFor(() => expect(server.callsTo('GET', '/api/pulsars/4').length).toBeGreaterThan(1));
+    // The plot follows the newest succeeded run.
+    await waitFor(() => expect(server.callsTo('GET', '/api/fit-runs/22/residuals')).toHaveLength(1));
+    const pollsAtEnd = listPolls;
+    await new Promise((r) => setTimeout(r, 1500));
+    expect(listPolls).toBe(pollsAtEnd);
+  });
+
   it('shows empty states to a viewer, without upload, edit, delete or queue controls', async () => {
     mockApi(
       routes({

@@ -1,5 +1,5 @@
-import type { QueryClient } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card, CardTitle } from '../../components/card';
 import { EmptyState } from '../../components/empty-state';
@@ -11,11 +11,13 @@ import { PERMISSIONS } from '../../config/permissions';
 import { isApiError } from '../../lib/api-client';
 import { formatCount, formatDateTimeUtc, formatMjd } from '../../lib/format';
 import { useMe } from '../../features/auth/api/get-me';
+import { isFinalFitStatus } from '../../features/fit-runs/api/get-fit-run';
 import { fitRunsQueryOptions, useFitRuns } from '../../features/fit-runs/api/get-fit-runs';
 import { FitRunList } from '../../features/fit-runs/components/fit-run-list';
 import { QueueFitPanel } from '../../features/fit-runs/components/queue-fit-panel';
 import { formatReducedChi2, formatRmsUs } from '../../features/fit-runs/lib/format-fit';
 import { pulsarQueryOptions, usePulsar } from '../../features/pulsars/api/get-pulsar';
+import { pulsarKeys } from '../../features/pulsars/api/get-pulsars';
 import { NotifyToggle } from '../../features/pulsars/components/notify-toggle';
 import { StatisticsJobPanel } from '../../features/pulsars/components/statistics-job-panel';
 import { WORKFLOW_PERMISSIONS } from '../../features/pulsars/lib/workflow-permissions';
@@ -114,6 +116,14 @@ function FitRunsSection({ pulsarId, canRun }: { pulsarId: string; canRun: boolea
   const runs = useFitRuns(pulsarId);
   const revisions = useRevisions(pulsarId);
   const latestSucceeded = runs.data?.find((r) => r.status === 'succeeded');
+  // When the last unfinished run finishes, the pulsar's `latestFit` (header, list, dashboard) is stale.
+  const queryClient = useQueryClient();
+  const anyActive = runs.data?.some((r) => !isFinalFitStatus(r.status)) ?? false;
+  const wasActive = useRef(anyActive);
+  useEffect(() => {
+    if (wasActive.current && !anyActive) void queryClient.invalidateQueries({ queryKey: pulsarKeys.all });
+    wasActive.current = anyActive;
+  }, [anyActive, queryClient]);
   return (
     <>
       <Card aria-labelledby="fit-runs-title">
