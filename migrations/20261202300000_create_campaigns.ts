@@ -13,6 +13,7 @@ export async function up(knex: Knex): Promise<void> {
     t.enu('revision_choice', ['latest', 'released']).notNullable();
     t.json('pulsar_selection').notNullable(); // "all" or an array of pulsar ids
     t.boolean('notify_creator').notNullable().defaultTo(false);
+    t.boolean('recompute').notNullable().defaultTo(false); // true: refit even when a succeeded run has the same inputs
     t.enu('status', ['queued', 'running', 'succeeded', 'failed', 'cancelled']).notNullable().defaultTo('queued');
     t.integer('progress_done').unsigned().notNullable().defaultTo(0);
     t.integer('progress_total').unsigned().notNullable().defaultTo(0);

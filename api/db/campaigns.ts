@@ -18,6 +18,7 @@ export interface CampaignRow {
   revision_choice: 'latest' | 'released';
   pulsar_selection: string | 'all' | number[]; // JSON column: text from MariaDB
   notify_creator: number | boolean;
+  recompute: number | boolean;
   status: CampaignStatus;
   progress_done: number;
   progress_total: number;
@@ -72,6 +73,7 @@ export interface Campaign {
   name: string;
   createdBy: { id: number; displayName: string } | null;
   revisionChoice: 'latest' | 'released';
+  recompute: boolean;
   pulsarSelection: 'all' | number[];
   status: CampaignStatus;
   progress: { percent: number; stage: string; done: number; total: number };
@@ -83,9 +85,14 @@ export interface Campaign {
   summary: CampaignSummaryItem[] | null;
 }
 
+/** A JSON column's value: mysql2 hands some back parsed (a top-level JSON string arrives as that string), others as text. */
 function parseJson<T>(value: string | T | null): T | null {
-  if (value === null) return null;
-  return typeof value === 'string' ? (JSON.parse(value) as T) : value;
+  if (value === null || typeof value !== 'string') return value;
+  try {
+    return JSON.parse(value) as T;
+  } catch {
+    return value as T;
+  }
 }
 
 export function pulsarSelectionOf(row: Pick<CampaignRow, 'pulsar_selection'>): 'all' | number[] {
@@ -120,6 +127,7 @@ export function presentCampaign(
     name: row.name,
     createdBy: row.created_by === null ? null : { id: row.created_by, displayName: row.creator_name ?? '' },
     revisionChoice: row.revision_choice,
+    recompute: Boolean(row.recompute),
     pulsarSelection: pulsarSelectionOf(row),
     status: row.status,
     progress: {

@@ -14,6 +14,7 @@ export const CreateCampaignBody = z.strictObject({
   ], { error: "must be 'all' or a list of pulsar ids" }),
   revisionChoice: z.enum(['latest', 'released'], { error: "must be 'latest' or 'released'" }),
   notifyMe: z.boolean().optional(),
+  recompute: z.boolean().optional(),
 });
 export type CreateCampaignBody = z.infer<typeof CreateCampaignBody>;
 

@@ -14,6 +14,8 @@ export interface CreateCampaignInput {
   pulsarIds: number[] | 'all';
   revisionChoice: 'latest' | 'released';
   notifyMe?: boolean;
+  /** Refit even when a succeeded run has identical inputs (default: reuse it). */
+  recompute?: boolean;
 }
 
 /** BullMQ job id of a campaign's job: one job per campaign, so a second add is a no-op. */
@@ -36,6 +38,7 @@ export async function createCampaign(deps: { knex: Knex; queue: Queue }, input: 
       revision_choice: input.revisionChoice,
       pulsar_selection: JSON.stringify(selection),
       notify_creator: input.notifyMe === true,
+      recompute: input.recompute === true,
       job_id: null,
     });
     if (input.notifyMe) await trx('notification_subscriptions').insert({ user_id: userId, campaign_id: id });
