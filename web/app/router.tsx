@@ -51,6 +51,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.pulsar.path, ...page(() => import('./routes/pulsar')) },
             { path: paths.fitRun.path, ...page(() => import('./routes/fit-run')) },
             { path: paths.pulsarUpload.path, ...page(() => import('./routes/upload')) },
+            { path: paths.pulsarModel.path, ...page(() => import('./routes/model-editor')) },
             { path: paths.observatories.path, ...page(() => import('./routes/observatories')) },
             { path: paths.users.path, ...page(() => import('./routes/users')) },
             { path: paths.outbox.path, ...page(() => import('./routes/outbox')) },
