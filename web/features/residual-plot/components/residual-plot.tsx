@@ -25,7 +25,7 @@ export default function ResidualPlot({ residuals, title }: { residuals: Residual
       paper_bgcolor: 'rgba(0,0,0,0)',
       plot_bgcolor: 'rgba(0,0,0,0)',
       font: { color: AXIS_COLOUR, family: 'Inter Variable, system-ui, sans-serif' },
-      xaxis: { title: { text: 'MJD (day)' }, gridcolor: GRID_COLOUR, zeroline: false, tickformat: 'd' },
+      xaxis: { title: { text: 'MJD (day)' }, gridcolor: GRID_COLOUR, zeroline: false, exponentformat: 'none' }, // 58000, not "58k"
       yaxis: { title: { text: 'Residual (µs)' }, gridcolor: GRID_COLOUR, zerolinecolor: ZERO_LINE_COLOUR },
       legend: { orientation: 'h', y: -0.2 },
       hovermode: 'closest',
