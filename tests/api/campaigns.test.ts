@@ -25,7 +25,6 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  if (process.env.DEBUG_LOGGED) console.log(t.logged);
   // No worker runs in this file: remove the queued campaign jobs so a later worker test does not pick them up.
   for (const id of createdCampaignIds) await (await t.queue.getJob(campaignJobId(id)))?.remove().catch(() => undefined);
   await t.close();
