@@ -73,6 +73,23 @@ describe('demo seed: timing scenario', () => {
     }
   });
 
+  it('fills in only what a pulsar lacks: its files and starting revision come back, the other pulsars are left alone', async () => {
+    await seedDemo(t.knex);
+    const target = scenario[3];
+    const targetId = await pulsarId(target.name);
+    const batchIdsOfOthers = async () => t.knex('toa_batches').whereNot({ pulsar_id: targetId }).whereIn('pulsar_id', t.knex('pulsars').whereIn('name', scenario.map((p) => p.name)).select('id')).orderBy('id').pluck('id');
+    const before = await batchIdsOfOthers();
+    await t.knex('toa_batches').where({ pulsar_id: targetId }).delete(); // its TOAs go with them (ON DELETE CASCADE)
+    await t.knex('model_revisions').where({ pulsar_id: targetId }).delete();
+    expect(await countRows('toas', { pulsar_id: targetId })).toBe(0);
+    await seedDemo(t.knex);
+    expect(await batchIdsOfOthers()).toEqual(before);
+    const restored = await t.knex('toa_batches').where({ pulsar_id: targetId }).pluck('checksum_sha256');
+    expect(restored.sort()).toEqual(target.batches.map((b) => createHash('sha256').update(b.csv).digest('hex')).sort());
+    expect(await countRows('toas', { pulsar_id: targetId })).toBe(target.batches.reduce((s, b) => s + b.rowCount, 0));
+    expect(await countRows('model_revisions', { pulsar_id: targetId })).toBe(1);
+  });
+
   it('stores the simulated TOAs losslessly enough that the true model still fits them with reduced χ² ≈ 1', async () => {
     const observatories = new Map(builtinObservatories().map((o) => [o.code, o]));
     const p = scenario[1]; // the binary millisecond pulsar: 1 µs uncertainties, the most demanding
