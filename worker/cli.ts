@@ -13,6 +13,7 @@
  * does not converge prints its result and exits with code 2 and the last χ².
  */
 import { readFileSync } from 'node:fs';
+import { resolve as resolvePath } from 'node:path';
 import { parseArgs } from 'node:util';
 import { TimingInputError } from './timing/engine-error';
 import { readModelText } from './timing/model/read-model-file';
@@ -60,7 +61,8 @@ function requireOption(command: string, values: Record<string, unknown>, name: s
 
 function readTextFile(option: string, path: string): string {
   try {
-    return readFileSync(path, 'utf8');
+    // `npm run cli` runs in the package root; relative paths mean the caller's folder (npm's INIT_CWD).
+    return readFileSync(resolvePath(process.env.INIT_CWD ?? process.cwd(), path), 'utf8');
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
     const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a directory' : code ?? (error as Error).message;
