@@ -184,6 +184,16 @@ describe('good files', () => {
     const rows = await t.knex('toas').where({ pulsar_id: pulsar.id }).orderBy('row_number').select('row_number', 'line_number', 'pulse_number', 'labels');
     expect(rows.map((r) => [r.row_number, r.line_number, r.pulse_number, typeof r.labels === 'string' ? JSON.parse(r.labels) : r.labels])).toEqual([[1, 2, '-7', { session: 's1' }], [2, 3, null, { session: 's2' }]]);
   });
+  it('keeps backends and labels with quotes, backslashes, question marks and non-ASCII text exactly', async () => {
+    const pulsar = await createPulsarRow(t.knex);
+    const backend = "o'neil\\x?";
+    const label = 'say "hi"; DROP TABLE toas; -- ? \\\\ ñ ✓';
+    const text = `${TOA_HEADER},note\n58000.5,1,1400,${observatory},${backend},"${label.replace(/"/g, '""')}"\n`;
+    await uploadToaFile(observer, pulsar.id, text).expect(201);
+    const row = await t.knex('toas').where({ pulsar_id: pulsar.id }).first('backend', 'labels');
+    expect(row.backend).toBe(backend);
+    expect(typeof row.labels === 'string' ? JSON.parse(row.labels) : row.labels).toEqual({ note: label });
+  });
 });
 
 describe('duplicates and request checks', () => {

@@ -9,7 +9,7 @@ import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import { MAX_TOA_FILE_ERRORS, MAX_TOA_ROWS, type TOABatch, type ToaFileErrorDetail } from '../../contracts/toas';
 import { presentToaBatch, selectToaBatches, type ToaBatchRow } from '../../db/toa-batches';
-import { mjdTextFromStored, storedMjdFromMjd, storedMjdFromText, type StoredMjd } from '../../db/toas';
+import { insertToaRows, mjdTextFromStored, storedMjdFromMjd, storedMjdFromText, type StoredMjd, type ToaInsert } from '../../db/toas';
 import { AppError, notFound } from '../../errors';
 import { formatToaFileErrors, readToaCsv, type ToaFileError } from '../../../worker/timing/toas/read-toa-csv';
 import type { Toa } from '../../../worker/timing/toas/toa';
@@ -26,6 +26,7 @@ export interface StoreToaBatchInput {
   confirmDuplicate?: boolean;
   checksumSha256?: string; // when the caller hashed the bytes while receiving them
   maxRows?: number; // default MAX_TOA_ROWS (tests lower it)
+  insertChunkRows?: number; // rows per INSERT, default TOA_INSERT_CHUNK_ROWS (the bench compares sizes)
 }
 
 /** Timings of the last call's stages, milliseconds (read by the upload bench). */
@@ -65,7 +66,7 @@ function compareStored(a: StoredMjd, b: StoredMjd): number {
   return a.day !== b.day ? a.day - b.day : a.fraction < b.fraction ? -1 : a.fraction > b.fraction ? 1 : 0; // fixed-width fractions
 }
 
-function toaRowOf(toa: Toa, mjd: StoredMjd, pulsarId: number, batchId: number) {
+function toaRowOf(toa: Toa, mjd: StoredMjd, pulsarId: number, batchId: number): ToaInsert {
   const hasLabels = Object.keys(toa.labels).length > 0;
   return {
     pulsar_id: pulsarId,
@@ -129,11 +130,12 @@ export async function storeToaBatch(knex: Knex, input: StoreToaBatchInput, timin
       backends: JSON.stringify([...new Set(toas.map((t) => t.backend))].sort()),
       status: 'stored',
     });
-    for (let start = 0; start < toas.length; start += TOA_INSERT_CHUNK_ROWS) {
-      const end = Math.min(start + TOA_INSERT_CHUNK_ROWS, toas.length);
-      const rows = [];
+    const chunkRows = input.insertChunkRows ?? TOA_INSERT_CHUNK_ROWS;
+    for (let start = 0; start < toas.length; start += chunkRows) {
+      const end = Math.min(start + chunkRows, toas.length);
+      const rows: ToaInsert[] = [];
       for (let i = start; i < end; i++) rows.push(toaRowOf(toas[i], stored[i], input.pulsarId, id));
-      await trx('toas').insert(rows);
+      await insertToaRows(trx, rows);
     }
     await recomputeToaStatistics(trx, input.pulsarId);
     return Number(id);
