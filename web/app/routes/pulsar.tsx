@@ -220,7 +220,7 @@ export default function PulsarRoute() {
           </dl>
         </Card>
         <ToaBatchesSection pulsarId={id} canDelete={can(WORKFLOW_PERMISSIONS.deleteToaBatches)} canUpload={can(WORKFLOW_PERMISSIONS.uploadToas)} />
-        <div className="grid grid-cols-1 gap-6 xl:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
+        <div className="grid grid-cols-1 items-start gap-6 xl:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
           <RevisionsSection pulsarId={id} canEdit={can(WORKFLOW_PERMISSIONS.editModels)} />
           <div className="flex min-w-0 flex-col gap-6">
             <FitRunsSection pulsarId={id} canRun={can(WORKFLOW_PERMISSIONS.runFits)} />

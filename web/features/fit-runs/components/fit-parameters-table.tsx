@@ -16,7 +16,11 @@ const columns = [
   column.accessor('path', { header: 'Parameter', cell: (i) => <span className="font-mono text-night-100">{i.getValue()}</span> }),
   column.display({
     id: 'value',
-    header: 'Fitted value ± 1σ',
+    header: () => (
+      <>
+        Fitted value ± 1<span className="normal-case">σ</span>
+      </>
+    ),
     cell: ({ row }) => (
       <span className="font-mono tabular-nums">
         {row.original.value} ± {formatUncertainty(row.original.uncertainty)}

@@ -31,7 +31,11 @@ const columns = [
   }),
   column.accessor((r) => r.result?.reducedChi2 ?? null, {
     id: 'reducedChi2',
-    header: 'Reduced χ²',
+    header: () => (
+      <>
+        Reduced <span className="normal-case">χ²</span>
+      </>
+    ),
     cell: (i) => <span className="font-mono tabular-nums">{formatReducedChi2(i.getValue())}</span>,
   }),
   column.accessor((r) => r.result?.weightedRmsUs ?? null, {

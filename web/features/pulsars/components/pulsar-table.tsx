@@ -62,7 +62,7 @@ const columns = [
     sortDescFirst: false,
     sortUndefined: 'last',
     cell: ({ row }) => (
-      <span className="font-mono text-night-200">
+      <span className="whitespace-nowrap font-mono text-night-200">
         {row.original.firstMjd === null ? '—' : `${formatMjd(row.original.firstMjd)} – ${formatMjd(row.original.lastMjd)}`}
       </span>
     ),
@@ -70,14 +70,22 @@ const columns = [
   column.accessor((p) => p.observatories.join(', '), { id: 'observatories', header: 'Observatories', enableSorting: false }),
   column.accessor((p) => p.latestFit?.reducedChi2 ?? undefined, {
     id: 'reducedChi2',
-    header: 'Reduced χ²',
+    header: () => (
+      <>
+        Reduced <span className="normal-case">χ²</span>
+      </>
+    ),
     sortUndefined: 'last',
     sortDescFirst: false, // best-fitting first
     cell: (i) => <span className="font-mono tabular-nums">{fixed3(i.getValue())}</span>,
   }),
   column.accessor((p) => p.latestFit?.weightedRmsUs ?? undefined, {
     id: 'rms',
-    header: 'RMS (µs)',
+    header: () => (
+      <>
+        RMS (<span className="normal-case">µs</span>)
+      </>
+    ),
     sortUndefined: 'last',
     sortDescFirst: false,
     cell: (i) => <span className="font-mono tabular-nums">{fixed3(i.getValue())}</span>,
@@ -131,7 +139,7 @@ export function PulsarTable({ pulsars }: { pulsars: Pulsar[] }) {
           />
         </label>
         <p className="text-xs text-night-400" aria-live="polite">
-          {shown.length === pulsars.length ? `${pulsars.length} pulsars` : `${shown.length} of ${pulsars.length} pulsars`}
+          {shown.length === pulsars.length ? `${pulsars.length} pulsar${pulsars.length === 1 ? '' : 's'}` : `${shown.length} of ${pulsars.length} pulsars`}
         </p>
       </div>
       <Table aria-label="Pulsars">
