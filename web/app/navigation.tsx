@@ -15,6 +15,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Dashboard', to: paths.dashboard.href(), end: true },
   { label: 'Pulsars', to: paths.pulsars.href() },
   { label: 'Observatories', to: paths.observatories.href() },
+  { label: 'Campaigns', to: paths.campaigns.href(), permission: 'campaigns:read' },
   { label: 'Users', to: paths.users.href(), permission: PERMISSIONS.manageUsers },
   { label: 'Outbox', to: paths.outbox.href(), permission: PERMISSIONS.readOutbox },
 ];

@@ -52,6 +52,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.fitRun.path, ...page(() => import('./routes/fit-run')) },
             { path: paths.pulsarUpload.path, ...page(() => import('./routes/upload')) },
             { path: paths.pulsarModel.path, ...page(() => import('./routes/model-editor')) },
+            { path: paths.campaigns.path, ...page(() => import('./routes/campaigns')) },
+            { path: paths.campaign.path, ...page(() => import('./routes/campaign')) },
             { path: paths.observatories.path, ...page(() => import('./routes/observatories')) },
             { path: paths.users.path, ...page(() => import('./routes/users')) },
             { path: paths.outbox.path, ...page(() => import('./routes/outbox')) },
