@@ -235,6 +235,17 @@ describe('duplicates and request checks', () => {
     expect(await storedCounts(pulsar.id)).toEqual({ toas: 0, batches: 0, toaCount: 0 });
   });
 
+  it('answers 400 for a malformed multipart body', async () => {
+    const pulsar = await createPulsarRow(t.knex);
+    const res = await observer.agent
+      .post(`/api/pulsars/${pulsar.id}/toa-batches`)
+      .set('x-csrf-token', observer.csrf)
+      .set('content-type', 'multipart/form-data; boundary=xyz')
+      .send('--xyz\r\nContent-Disposition: form-data; name="file"; filename="a.csv"\r\n\r\nmjd,unfinished');
+    expect([res.status, res.body.error?.code]).toEqual([400, 'validation_failed']);
+    expect(await storedCounts(pulsar.id)).toEqual({ toas: 0, batches: 0, toaCount: 0 });
+  });
+
   it('answers 404 for an unknown pulsar', async () => {
     const res = await uploadToaFile(observer, 2147483000, toaCsv(observatory, 2));
     expect([res.status, res.body.error?.code]).toEqual([404, 'not_found']);

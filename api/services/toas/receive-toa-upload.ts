@@ -56,6 +56,7 @@ export function receiveToaUpload(req: Request, maxBytes: number): Promise<Receiv
     };
 
     parser.on('file', (name, stream, info) => {
+      stream.on('error', () => undefined); // a truncated body errors the file stream too; the parser's 'error' answers it
       if (name !== 'file' || fileName !== null) {
         fail(fieldError([name], name === 'file' ? 'only one file per upload' : 'unknown file field (the file part is named "file")'));
         stream.resume();
