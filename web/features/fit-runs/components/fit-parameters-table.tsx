@@ -17,9 +17,9 @@ const columns = [
   column.display({
     id: 'value',
     header: () => (
-      <>
+      <span className="whitespace-nowrap">
         Fitted value ± 1<span className="normal-case">σ</span>
-      </>
+      </span>
     ),
     cell: ({ row }) => (
       <span className="font-mono tabular-nums">

@@ -32,9 +32,9 @@ const columns = [
   column.accessor((r) => r.result?.reducedChi2 ?? null, {
     id: 'reducedChi2',
     header: () => (
-      <>
+      <span className="whitespace-nowrap">
         Reduced <span className="normal-case">χ²</span>
-      </>
+      </span>
     ),
     cell: (i) => <span className="font-mono tabular-nums">{formatReducedChi2(i.getValue())}</span>,
   }),

@@ -71,9 +71,9 @@ const columns = [
   column.accessor((p) => p.latestFit?.reducedChi2 ?? undefined, {
     id: 'reducedChi2',
     header: () => (
-      <>
+      <span className="whitespace-nowrap">
         Reduced <span className="normal-case">χ²</span>
-      </>
+      </span>
     ),
     sortUndefined: 'last',
     sortDescFirst: false, // best-fitting first
@@ -82,9 +82,9 @@ const columns = [
   column.accessor((p) => p.latestFit?.weightedRmsUs ?? undefined, {
     id: 'rms',
     header: () => (
-      <>
+      <span className="whitespace-nowrap">
         RMS (<span className="normal-case">µs</span>)
-      </>
+      </span>
     ),
     sortUndefined: 'last',
     sortDescFirst: false,
@@ -155,7 +155,7 @@ export function PulsarTable({ pulsars }: { pulsars: Pulsar[] }) {
                       <button
                         type="button"
                         onClick={header.column.getToggleSortingHandler()}
-                        className="inline-flex items-center gap-1 rounded-sm uppercase tracking-wide hover:text-night-100"
+                        className="inline-flex items-center gap-1 whitespace-nowrap rounded-sm uppercase tracking-wide hover:text-night-100"
                       >
                         {label}
                         <span aria-hidden="true" className="text-ember-400">
