@@ -1,4 +1,4 @@
-import { act, cleanup, screen, waitFor, within } from '@testing-library/react';
+import { act, cleanup, fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { resetCsrfToken } from '../../web/lib/api-client';
 import { precheckUpload, MAX_UPLOAD_BYTES } from '../../web/features/upload/upload-rules';
@@ -195,6 +195,41 @@ describe('upload page', () => {
     await user.upload(screen.getByLabelText('TOA file'), huge);
     expect(screen.getByText('This file cannot be uploaded')).toBeTruthy();
     expect((screen.getByRole('button', { name: 'Upload huge.csv' }) as HTMLButtonElement).disabled).toBe(true);
+  });
+
+  it('takes a dropped file, warns about a name without .csv, and sends it anyway', async () => {
+    setup();
+    const { user } = renderApp('/pulsars/5/upload');
+    const zone = await screen.findByTestId('drop-zone');
+    const dropped = new File(['mjd,uncertainty_us,frequency_mhz,observatory\n'], 'toas.txt', { type: 'text/plain' });
+    fireEvent.dragOver(zone, { dataTransfer: { files: [dropped] } });
+    fireEvent.drop(zone, { dataTransfer: { files: [dropped] } });
+    expect(await screen.findByText(/toas\.txt does not end in \.csv/)).toBeTruthy();
+    await user.click(screen.getByRole('button', { name: 'Upload toas.txt' }));
+    await waitFor(() => expect(FakeXhr.all).toHaveLength(1));
+    expect((FakeXhr.all[0].body?.get('file') as File).name).toBe('toas.txt');
+  });
+
+  it('fetches a fresh CSRF token and sends again once after 403 csrf_invalid', async () => {
+    const server = setup();
+    const { user } = renderApp('/pulsars/5/upload');
+    const first = await chooseAndSend(user, new File(['x'], 'night-7.csv'));
+    first.respond(403, { error: { code: 'csrf_invalid', message: 'stale token' } });
+    await waitFor(() => expect(FakeXhr.all).toHaveLength(2));
+    expect(server.callsTo('GET', '/api/auth/csrf')).toHaveLength(2);
+    FakeXhr.all[1].respond(201, { data: BATCH });
+    expect(await screen.findByText('Stored 1842 TOAs from night-7.csv')).toBeTruthy();
+  });
+
+  it('cancels an upload in flight', async () => {
+    setup();
+    const { user } = renderApp('/pulsars/5/upload');
+    const xhr = await chooseAndSend(user, new File(['x'], 'night-7.csv'));
+    xhr.progress(10, 100);
+    await user.click(screen.getByRole('button', { name: 'Cancel upload' }));
+    expect(xhr.aborted).toBe(true);
+    expect(screen.queryByRole('progressbar')).toBeNull();
+    expect(screen.getByRole('button', { name: 'Upload night-7.csv' })).toBeTruthy();
   });
 
   it('hides the page from roles without toas:upload', async () => {
