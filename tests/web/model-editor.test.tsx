@@ -121,6 +121,16 @@ describe('model editor', () => {
     expect(server.callsTo('GET', '/api/revisions/2')).toHaveLength(0);
   });
 
+  it('switches to another revision from the picker', async () => {
+    setup();
+    const { user, router } = renderApp('/pulsars/8/model');
+    expect((await screen.findByLabelText('Spin frequency (Hz)') as HTMLInputElement).value).toBe('716.358712478123456789');
+    await user.selectOptions(screen.getByLabelText('Start from revision'), '1');
+    await waitFor(() => expect(field('Spin frequency (Hz)').value).toBe('716.35871247'));
+    expect(router.state.location.search).toBe('?revision=1');
+    expect(screen.getByRole('switch', { name: 'Solve for Spin frequency' }).getAttribute('aria-checked')).toBe('false');
+  });
+
   it('shows the fields of the chosen companion kind', async () => {
     setup();
     const { user } = renderApp('/pulsars/8/model');
