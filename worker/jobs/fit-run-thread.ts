@@ -8,6 +8,7 @@
  * The thread loads its TypeScript through tsx's loader (registered inside the
  * thread), so it works both under `tsx worker/index.ts` and inside Vitest.
  */
+import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -31,7 +32,14 @@ export class FitThreadError extends Error {
 }
 
 const ENTRY_URL = pathToFileURL(path.join(import.meta.dirname, 'fit-run-thread-entry.ts')).href;
-const TSX_API_URL = pathToFileURL(createRequire(import.meta.url).resolve('tsx/esm/api')).href;
+const TSX_API_URL = tsxEsmApiUrl();
+
+/** URL of tsx's ES-module API (`tsx/esm/api`, import condition): its CommonJS twin cannot register from a thread. */
+function tsxEsmApiUrl(): string {
+  const manifestPath = createRequire(import.meta.url).resolve('tsx/package.json');
+  const manifest = JSON.parse(readFileSync(manifestPath, 'utf8')) as { exports: Record<string, { import: { default: string } }> };
+  return pathToFileURL(path.join(path.dirname(manifestPath), manifest.exports['./esm/api'].import.default)).href;
+}
 
 // CommonJS bootstrap (eval): register tsx in this thread, then import the TypeScript entry.
 const BOOTSTRAP = `
