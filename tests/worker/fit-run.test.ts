@@ -10,6 +10,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { UnrecoverableError, type Job } from 'bullmq';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createKnex } from '../../api/db/create-knex';
 import type { ObservatoryJson } from '../../api/db/observatories';
 import { processFitRun } from '../../worker/jobs/fit-run';
 import { onFitRunFinished, type FitRunFinished } from '../../worker/jobs/fit-run-events';
@@ -218,6 +219,20 @@ describe('engine input errors', () => {
   it('reject a bad payload as unrecoverable', async () => {
     const fakeJob = { data: { fitRunId: 'x' }, opts: {}, attemptsMade: 0, updateProgress: async () => {} } as unknown as Job;
     await expect(processFitRun(fakeJob, { knex: t.knex })).rejects.toBeInstanceOf(UnrecoverableError);
+  });
+});
+
+describe('transient errors', () => {
+  it('are thrown as ordinary errors (BullMQ retries them), not as unrecoverable ones', async () => {
+    const unreachable = createKnex({ ...t.config, db: { ...t.config.db, port: 1 } }); // database down: nothing listens on port 1
+    const fakeJob = { data: { fitRunId: 1 }, opts: { attempts: 3 }, attemptsMade: 0, updateProgress: async () => {} } as unknown as Job;
+    try {
+      const error = await processFitRun(fakeJob, { knex: unreachable }).catch((e: unknown) => e);
+      expect(error).toBeInstanceOf(Error);
+      expect(error).not.toBeInstanceOf(UnrecoverableError);
+    } finally {
+      await unreachable.destroy();
+    }
   });
 });
 
