@@ -38,9 +38,10 @@ export async function planCampaignRuns(knex: Knex, campaign: CampaignRow): Promi
       before_weighted_rms_us: before?.weightedRmsUs ?? null,
     });
   }
+  // The campaign row first, then its runs: the same lock order as cancelCampaign, so the two cannot deadlock.
   await knex.transaction(async (trx) => {
-    if (rows.length > 0) await trx('campaign_runs').insert(rows).onConflict(['campaign_id', 'pulsar_id']).ignore();
     await trx('campaigns').where({ id: campaign.id }).update({ progress_total: rows.length, progress_stage: 'fanning out' });
+    if (rows.length > 0) await trx('campaign_runs').insert(rows).onConflict(['campaign_id', 'pulsar_id']).ignore();
   });
   return rows.length;
 }

@@ -14,7 +14,7 @@ export async function cancelCampaign(deps: { knex: Knex; queue: Queue }, id: num
   const { knex, queue } = deps;
   const before = await findCampaign(knex, id);
   if (!before) throw notFound('campaign');
-  const queuedJobIds = await knex.transaction(async (trx) => {
+  const queuedJobIds = await retryOnDeadlock(() => knex.transaction(async (trx) => {
     const changed = await trx('campaigns')
       .where({ id })
       .whereIn('status', ['queued', 'running'])
@@ -34,7 +34,7 @@ export async function cancelCampaign(deps: { knex: Knex; queue: Queue }, id: num
       .where((q) => q.whereIn('status', ['pending']).orWhereIn('fit_run_id', queuedRuns.map((r) => r.id)))
       .update({ status: 'cancelled' });
     return queuedRuns.map((r) => r.job_id).filter((j): j is string => j !== null);
-  });
+  }));
   // Removing a waiting job is a courtesy: the fit job also reads the row's status before it starts.
   await Promise.all(
     queuedJobIds.map(async (jobId) => {
@@ -43,4 +43,19 @@ export async function cancelCampaign(deps: { knex: Knex; queue: Queue }, id: num
     }),
   );
   return presentCampaign((await findCampaign(knex, id))!, await loadCampaignRuns(knex, id));
+}
+
+/**
+ * Runs a transaction again when MariaDB chose it as a deadlock victim (the
+ * campaign job may be planning the same campaign's rows at that moment);
+ * the rolled-back attempt left nothing behind.
+ */
+async function retryOnDeadlock<T>(attempt: () => Promise<T>, tries = 3): Promise<T> {
+  for (let i = 1; ; i++) {
+    try {
+      return await attempt();
+    } catch (err) {
+      if ((err as { code?: string }).code !== 'ER_LOCK_DEADLOCK' || i >= tries) throw err;
+    }
+  }
 }
