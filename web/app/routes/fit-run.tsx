@@ -30,8 +30,7 @@ export const clientLoader =
     return null;
   };
 
-// The API does not say whether `uncertainty` is scaled by √(reduced χ²); until it does, the page
-// states the safe reading: the formal 1σ from the covariance, unscaled.
+// api/contracts/fit-runs.ts: `uncertainty` is the formal 1σ, not scaled by √(reduced χ²).
 const UNCERTAINTY_NOTE = 'Uncertainties: unscaled (formal) 1σ.';
 
 const downloadClasses =

@@ -1,64 +1,23 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import type {
+  FitParameterResult,
+  FitResult as ApiFitResult,
+  FitRun as ApiFitRun,
+  FitRunStatus as ApiFitRunStatus,
+  FitRunSummary as ApiFitRunSummary,
+} from '../../../../api/contracts/fit-runs';
 
-export type FitRunStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
-
-/** One fitted parameter; `value` and `startValue` are decimal strings, `changeSigma` = (value − start) / uncertainty. */
-export interface FittedParameter {
-  value: string;
-  uncertainty: number;
-  unit: string;
-  startValue: string;
-  changeSigma: number;
-}
-
-export interface FitResultSummary {
-  chi2: number;
-  dof: number;
-  reducedChi2: number;
-  weightedRmsUs: number;
-  iterations: number;
-  converged: boolean;
-  warnings: string[];
-}
-
-export interface FitResult extends FitResultSummary {
-  parameters: Record<string, FittedParameter>;
-  fittedModel: unknown;
-}
-
-/** The engine settings the run used; more keys may follow. */
-export interface FitSettings {
-  ephemeris?: string;
-  clock?: string;
-  timeScale?: string;
-  earthOrientation?: string;
-  [key: string]: unknown;
-}
-
-/** GET /api/fit-runs/:id (docs/api-workflow.md, "Fit runs"). */
-export interface FitRun<R = FitResult> {
-  id: number;
-  pulsarId: number;
-  revisionId: number;
-  campaignId: number | null;
-  status: FitRunStatus;
-  progress: { percent: number; stage: string } | null;
-  inputsHash: string;
-  settings: FitSettings;
-  toaCount: number;
-  excludedCount: number;
-  requestedBy: { id: number; displayName: string } | null;
-  queuedAt: string;
-  startedAt: string | null;
-  finishedAt: string | null;
-  durationMs: number | null;
-  errorMessage: string | null;
-  result: R | null;
-}
-
-/** A list entry: the run without `result.parameters` and `result.fittedModel`. */
-export type FitRunSummary = FitRun<FitResultSummary>;
+// The shapes come from the API's shared contract (api/contracts/fit-runs.ts), so a renamed field
+// fails the type check here. Note there: `uncertainty` is the formal 1σ, not scaled by √χ²_red.
+export type FitRunStatus = ApiFitRunStatus;
+export type FittedParameter = FitParameterResult;
+export type FitResult = ApiFitResult;
+export type FitResultSummary = NonNullable<ApiFitRunSummary['result']>;
+export type FitRun = ApiFitRun;
+export type FitRunSummary = ApiFitRunSummary;
+/** The engine settings a run used, as shown on the page (the contract's named keys, maybe more later). */
+export type FitSettings = Record<string, unknown>;
 
 /** Statuses after which a run never changes again; polling stops there. */
 export const FINAL_FIT_STATUSES: ReadonlySet<FitRunStatus> = new Set(['succeeded', 'failed', 'cancelled']);

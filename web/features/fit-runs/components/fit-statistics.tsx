@@ -62,7 +62,7 @@ export function FitWarnings({ result }: { result: FitResultSummary }) {
 }
 
 /** χ², degrees of freedom, reduced χ², weighted RMS, iterations, convergence and the TOAs used. */
-export function FitStatistics({ run, result }: { run: FitRun<unknown>; result: FitResultSummary }) {
+export function FitStatistics({ run, result }: { run: Pick<FitRun, 'toaCount' | 'excludedCount' | 'durationMs'>; result: FitResultSummary }) {
   return (
     <dl className="grid grid-cols-2 gap-4 text-sm sm:grid-cols-4" aria-label="Fit statistics">
       <Fact label="χ²">{Number.isFinite(result.chi2) ? result.chi2.toPrecision(6) : '—'}</Fact>
@@ -73,7 +73,7 @@ export function FitStatistics({ run, result }: { run: FitRun<unknown>; result: F
       <Fact label="Converged">{result.converged ? 'yes' : 'no'}</Fact>
       <Fact label="TOAs">
         {formatCount(run.toaCount)}
-        {run.excludedCount > 0 ? ` (${formatCount(run.excludedCount)} excluded)` : ''}
+        {(run.excludedCount ?? 0) > 0 ? ` (${formatCount(run.excludedCount)} excluded)` : ''}
       </Fact>
       <Fact label="Duration">{formatDurationMs(run.durationMs)}</Fact>
     </dl>

@@ -1,17 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { ResidualTable } from '../../../../api/contracts/fit-runs';
 import { api } from '../../../lib/api-client';
 
-/** GET /api/fit-runs/:id/residuals, columnar: index i across all arrays is one TOA. */
-export interface ResidualColumns {
-  count: number;
-  toaId: number[];
-  mjd: string[];
-  residualUs: number[];
-  uncertaintyUs: number[];
-  frequencyMhz: (number | null)[];
-  backend: string[];
-  observatory: string[];
-}
+/** GET /api/fit-runs/:id/residuals, columnar: index i across all arrays is one TOA (api/contracts/fit-runs.ts). */
+export type ResidualColumns = ResidualTable;
 
 export const residualKeys = {
   all: ['residuals'] as const,

@@ -6,11 +6,12 @@ export interface Revision {
   id: number;
   pulsarId: number;
   parentId: number | null;
-  author: { id: number; displayName: string };
+  /** null once the author's account is deleted. */
+  author: { id: number; displayName: string } | null;
   message: string;
   createdAt: string;
   releasedAt: string | null;
-  releasedBy: { id: number; displayName: string } | number | null;
+  releasedBy: { id: number; displayName: string } | null;
   releaseNote: string | null;
 }
 

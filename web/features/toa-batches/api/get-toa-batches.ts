@@ -1,21 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { TOABatch } from '../../../../api/contracts/toas';
 import { api } from '../../../lib/api-client';
 
-/** One stored upload (docs/api-workflow.md, "TOA batches and TOAs"). */
-export interface ToaBatch {
-  id: number;
-  pulsarId: number;
-  fileName: string;
-  uploadedBy: { id: number; displayName: string };
-  checksumSha256: string;
-  rowCount: number;
-  firstMjd: string;
-  lastMjd: string;
-  observatories: string[];
-  backends: string[];
-  status: 'stored';
-  createdAt: string;
-}
+/** One stored upload, as the API's shared contract names it (api/contracts/toas.ts). */
+export type ToaBatch = TOABatch;
 
 export const toaBatchKeys = {
   all: ['toa-batches'] as const,
