@@ -84,7 +84,6 @@ describe('pulsar detail', () => {
     });
     const { user } = renderApp('/pulsars/2');
     expect(await screen.findByRole('heading', { name: 'J0300+2000' })).toBeTruthy();
-    expect(screen.getByText('TOAs, models and fits arrive here.')).toBeTruthy();
     await user.click(screen.getByRole('button', { name: 'Recount TOA statistics' }));
 
     const bar = await screen.findByRole('progressbar', { name: 'Recount progress' });
