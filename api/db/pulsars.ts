@@ -1,4 +1,6 @@
 /** Row type of `pulsars` and its JSON presentation (TOA statistics written by the toa-statistics job). */
+import type { PulsarWorkflowSummary } from './pulsar-workflow-summary';
+
 export interface PulsarRow {
   id: number;
   name: string;
@@ -24,6 +26,8 @@ export interface Pulsar {
   observatories: string[];
   statisticsUpdatedAt: string | null;
   createdAt: string;
+  latestFit: PulsarWorkflowSummary['latestFit'];
+  revisionCount: number;
 }
 
 function observatoryCodes(value: PulsarRow['observatories']): string[] {
@@ -32,7 +36,7 @@ function observatoryCodes(value: PulsarRow['observatories']): string[] {
   return Array.isArray(parsed) ? parsed.filter((c): c is string => typeof c === 'string') : [];
 }
 
-export function presentPulsar(row: PulsarRow): Pulsar {
+export function presentPulsar(row: PulsarRow, summary: PulsarWorkflowSummary = { latestFit: null, revisionCount: 0 }): Pulsar {
   return {
     id: row.id,
     name: row.name,
@@ -44,5 +48,7 @@ export function presentPulsar(row: PulsarRow): Pulsar {
     observatories: observatoryCodes(row.observatories),
     statisticsUpdatedAt: row.statistics_updated_at ? row.statistics_updated_at.toISOString() : null,
     createdAt: row.created_at.toISOString(),
+    latestFit: summary.latestFit,
+    revisionCount: summary.revisionCount,
   };
 }
