@@ -99,34 +99,52 @@ const INSERT_COLUMNS = `(${['pulsar_id', 'batch_id', 'row_number', 'line_number'
 const STORED_FRACTION = /^0\.\d{38}$/;
 
 function sqlInteger(x: number): string {
-  if (!Number.isSafeInteger(x)) throw new RangeError(`insertToaRows: ${x} is not a safe integer`);
+  if (!Number.isSafeInteger(x)) throw new RangeError(`toaInsertSql: ${x} is not a safe integer`);
   return String(x);
 }
 
 function sqlDouble(x: number | null): string {
   if (x === null) return 'NULL';
-  if (!Number.isFinite(x)) throw new RangeError(`insertToaRows: ${x} is not a finite number`);
+  if (!Number.isFinite(x)) throw new RangeError(`toaInsertSql: ${x} is not a finite number`);
   return String(x); // shortest text that reads back to the same double
 }
 
 /**
- * One multi-row INSERT of TOAs, its text built here: knex's query builder and
- * mysql2's placeholder formatting took most of the time for 100 000 rows
+ * The text of one multi-row INSERT of TOAs, built here: knex's query builder
+ * and mysql2's placeholder formatting took most of the time for 100 000 rows
  * (scripts/bench/upload.ts). Strings are escaped with mysql2's own `escape`
  * (what its placeholder formatting uses); numbers are checked and printed;
  * the DECIMAL fraction is checked against its fixed form and sent as a
  * literal, so no digit passes through a float.
  */
-export async function insertToaRows(trx: Knex | Knex.Transaction, rows: readonly ToaInsert[]): Promise<void> {
-  if (rows.length === 0) return;
+export function toaInsertSql(rows: readonly ToaInsert[]): string {
   const values = new Array<string>(rows.length);
   for (let i = 0; i < rows.length; i++) {
     const r = rows[i];
-    if (!STORED_FRACTION.test(r.mjd_fraction)) throw new RangeError(`insertToaRows: fraction "${r.mjd_fraction}" is not 0.<38 digits>`);
+    if (!STORED_FRACTION.test(r.mjd_fraction)) throw new RangeError(`toaInsertSql: fraction "${r.mjd_fraction}" is not 0.<38 digits>`);
     values[i] =
       `(${sqlInteger(r.pulsar_id)},${sqlInteger(r.batch_id)},${sqlInteger(r.row_number)},${sqlInteger(r.line_number)},` +
       `${sqlInteger(r.mjd_day)},${r.mjd_fraction},${sqlDouble(r.uncertainty_us)},${sqlDouble(r.frequency_mhz)},` +
       `${escape(r.observatory)},${escape(r.backend)},${r.pulse_number === null ? 'NULL' : sqlInteger(r.pulse_number)},${escape(r.labels)})`;
   }
-  await trx.raw(`INSERT INTO \`toas\` ${INSERT_COLUMNS} VALUES ${values.join(',')}`);
+  return `INSERT INTO \`toas\` ${INSERT_COLUMNS} VALUES ${values.join(',')}`;
+}
+
+/**
+ * Inserts TOAs in multi-row INSERTs of `chunkRows`, building each statement's
+ * text while the previous one runs (JavaScript and MariaDB work side by side).
+ */
+export async function insertToaRows(trx: Knex | Knex.Transaction, rows: readonly ToaInsert[], chunkRows = rows.length): Promise<void> {
+  let running: Promise<unknown> | null = null;
+  try {
+    for (let start = 0; start < rows.length; start += chunkRows) {
+      const sql = toaInsertSql(rows.slice(start, start + chunkRows));
+      if (running) await running;
+      running = trx.raw(sql).then((result) => result); // knex runs a query only once it is awaited
+    }
+    if (running) await running;
+  } catch (err) {
+    await running?.catch(() => undefined); // never leave a statement running (or a rejection unhandled)
+    throw err;
+  }
 }

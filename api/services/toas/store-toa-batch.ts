@@ -16,7 +16,7 @@ import type { Toa } from '../../../worker/timing/toas/toa';
 import { ephemerisRangeErrors } from './check-ephemeris-range';
 import { recomputeToaStatistics } from './recompute-toa-statistics';
 
-export const TOA_INSERT_CHUNK_ROWS = 5_000; // rows per INSERT (scripts/bench/upload.ts measures the store)
+export const TOA_INSERT_CHUNK_ROWS = 1_000; // rows per INSERT: fastest of 500–20 000 in scripts/bench/upload.ts (a busy machine: noisy)
 
 export interface StoreToaBatchInput {
   pulsarId: number;
@@ -31,8 +31,10 @@ export interface StoreToaBatchInput {
 
 /** Timings of the last call's stages, milliseconds (read by the upload bench). */
 export interface StoreTimings {
-  parseMs: number;
-  storeMs: number;
+  parseMs: number; // reading and checking the file
+  storeMs: number; // the whole transaction, commit included
+  insertMs?: number; // of which: the TOA INSERTs
+  statisticsMs?: number; // of which: recounting the pulsar's statistics
 }
 
 function invalidFile(errors: ToaFileError[], count: number): AppError {
@@ -130,14 +132,15 @@ export async function storeToaBatch(knex: Knex, input: StoreToaBatchInput, timin
       backends: JSON.stringify([...new Set(toas.map((t) => t.backend))].sort()),
       status: 'stored',
     });
-    const chunkRows = input.insertChunkRows ?? TOA_INSERT_CHUNK_ROWS;
-    for (let start = 0; start < toas.length; start += chunkRows) {
-      const end = Math.min(start + chunkRows, toas.length);
-      const rows: ToaInsert[] = [];
-      for (let i = start; i < end; i++) rows.push(toaRowOf(toas[i], stored[i], input.pulsarId, id));
-      await insertToaRows(trx, rows);
-    }
+    const insertStart = performance.now();
+    const rows = toas.map((toa, i) => toaRowOf(toa, stored[i], input.pulsarId, id));
+    await insertToaRows(trx, rows, input.insertChunkRows ?? TOA_INSERT_CHUNK_ROWS);
+    const statisticsStart = performance.now();
     await recomputeToaStatistics(trx, input.pulsarId);
+    if (timings) {
+      timings.insertMs = statisticsStart - insertStart;
+      timings.statisticsMs = performance.now() - statisticsStart;
+    }
     return Number(id);
   });
   if (timings) {
