@@ -11,9 +11,11 @@ import path from 'node:path';
 import { UnrecoverableError, type Job } from 'bullmq';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ObservatoryJson } from '../../api/db/observatories';
+import { createMailer } from '../../api/mail/mailer';
 import { startSmtpSink, type SmtpSink } from '../../api/mail/smtp-sink';
 import { createFitRun } from '../../api/services/fit-runs/create-fit-run';
 import { processCampaign } from '../../worker/jobs/campaign';
+import { failCampaign } from '../../worker/jobs/campaign-failure';
 import { startWorker } from '../../worker/index';
 import { signedInClient, type Client } from '../api/helpers/agents';
 import { createPulsarRow, createUser, type CreatedUser } from '../api/helpers/factories';
@@ -163,6 +165,47 @@ describe('a campaign over several pulsars', () => {
     const byPulsar = new Map(campaign.runs.map((r: { pulsarId: number }) => [r.pulsarId, r]));
     expect(byPulsar.get(released.id)).toMatchObject({ revisionId: released.revisionIds[0], status: 'succeeded' });
     expect(byPulsar.get(unreleased.id)).toMatchObject({ revisionId: null, status: 'skipped', skippedReason: 'no released revision' });
+  });
+});
+
+describe('failures', () => {
+  it('is failed, with the fit error in its message, when one pulsar cannot be fitted; the others still finish', async () => {
+    const good = await pulsarWith({ toas: true, models: ['truth'], seed: 51 });
+    const tooFew = await createPulsarRow(t.knex); // 3 TOAs for a model that solves for more parameters than that
+    await storeCsv(t.knex, tooFew.id, simulatedCsv(demoModelJson(tooFew.name), observatory, 3, 52), lead.id);
+    await post(`/api/pulsars/${tooFew.id}/revisions`, { model: demoModelJson(tooFew.name), message: 'start' }).expect(201);
+    const afterMailId = await lastMailId(t.knex);
+    const started = await post('/api/campaigns', { name: 'One bad', pulsarIds: [good.id, tooFew.id], revisionChoice: 'latest', notifyMe: true, recompute: true });
+    const campaign = await waitForCampaign(started.body.data.id, isFinal);
+    expect(campaign.status).toBe('failed');
+    const failedFit = await t.knex('fit_runs').where({ campaign_id: campaign.id, pulsar_id: tooFew.id }).first('status', 'error_message');
+    expect(failedFit.status).toBe('failed');
+    expect(campaign.errorMessage).toBe(`1 of 2 fit runs failed; first: ${tooFew.name}: ${failedFit.error_message}`);
+    const statusOf = new Map(campaign.summary.map((s: { pulsarId: number; status: string }) => [s.pulsarId, s.status]));
+    expect(statusOf).toEqual(new Map([[good.id, 'succeeded'], [tooFew.id, 'failed']]));
+    const mail = await mailWithSubject(lead.email, afterMailId, 'Campaign "One bad" failed');
+    expect(mail.text_body).toContain(`- ${tooFew.name}: failed`);
+  });
+
+  it('records a campaign whose job failed for good as failed, keeps the summary so far and mails its followers once', async () => {
+    const p = await createPulsarRow(t.knex);
+    const [id] = await t.knex('campaigns').insert({ name: 'Lost job', created_by: lead.id, revision_choice: 'latest', pulsar_selection: '"all"', status: 'running' });
+    await t.knex('campaign_runs').insert({ campaign_id: id, pulsar_id: p.id, status: 'skipped', skipped_reason: 'no TOAs' });
+    await t.knex('notification_subscriptions').insert({ user_id: lead.id, campaign_id: id });
+    const afterMailId = await lastMailId(t.knex);
+    const mail = { knex: t.knex, mailer: createMailer(t.config.mail), publicUrl: t.config.api.publicUrl, log: () => {} };
+    try {
+      expect(await failCampaign({ knex: t.knex, mail }, id, 'Connection lost: The server closed the connection.')).toBe(true);
+      expect(await failCampaign({ knex: t.knex, mail }, id, 'again')).toBe(false); // already final: no second mail
+    } finally {
+      mail.mailer.close();
+    }
+    const row = await t.knex('campaigns').where({ id }).first();
+    expect(row).toMatchObject({ status: 'failed', error_message: 'Connection lost: The server closed the connection.', progress_done: 1, progress_total: 1 });
+    const got = await mailWithSubject(lead.email, afterMailId, 'Campaign "Lost job" failed');
+    expect(got.text_body).toContain('Error: Connection lost: The server closed the connection.');
+    const [{ n }] = await t.knex('captured_emails').where('id', '>', afterMailId).where({ subject: 'Campaign "Lost job" failed' }).count({ n: '*' });
+    expect(Number(n)).toBe(1);
   });
 });
 
