@@ -16,7 +16,7 @@ import type { Toa } from '../../../worker/timing/toas/toa';
 import { ephemerisRangeErrors } from './check-ephemeris-range';
 import { recomputeToaStatistics } from './recompute-toa-statistics';
 
-export const TOA_INSERT_CHUNK_ROWS = 1_000; // rows per INSERT: fastest of 500–20 000 in scripts/bench/upload.ts (a busy machine: noisy)
+export const TOA_INSERT_CHUNK_ROWS = 1_000; // rows per INSERT: 500–5 000 equal within noise, 20 000 slower (scripts/bench/upload.ts)
 
 export interface StoreToaBatchInput {
   pulsarId: number;
