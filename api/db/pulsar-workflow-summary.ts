@@ -33,7 +33,8 @@ export async function loadWorkflowSummaries(knex: Knex, pulsarIds: number[]): Pr
       finishedAt: run.finished_at ? new Date(run.finished_at).toISOString() : null,
     };
   }
-  const counts = await knex('model_revisions').whereIn('pulsar_id', pulsarIds).groupBy('pulsar_id').select('pulsar_id').count({ n: '*' });
+  const counts: { pulsar_id: number; n: number | string }[] = await knex('model_revisions')
+    .whereIn('pulsar_id', pulsarIds).groupBy('pulsar_id').select('pulsar_id').count({ n: '*' });
   for (const row of counts) summaries.get(Number(row.pulsar_id))!.revisionCount = Number(row.n);
   return summaries;
 }
