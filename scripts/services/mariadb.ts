@@ -9,7 +9,7 @@ import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { Config } from '../../api/config';
-import { livePid, run, waitFor, waitForExit } from './process-tools';
+import { livePid, logTail, run, ServiceStartError, waitFor, waitForExit } from './process-tools';
 
 export interface MariaDbPaths { dataDir: string; socket: string; pidFile: string; logFile: string }
 
@@ -51,7 +51,12 @@ export async function startMariaDb(config: Config): Promise<{ started: boolean; 
     '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
   ], { detached: true, stdio: 'ignore' });
   child.unref();
+  let exited: number | null = null;
+  child.once('exit', (code) => {
+    exited = code ?? 1;
+  });
   await waitFor(`MariaDB on ${config.db.host}:${config.db.port} (log: ${paths.logFile})`, async () => {
+    if (exited !== null) throw new ServiceStartError(`MariaDB exited (${exited}) while starting: ${logTail(paths.logFile)}`);
     await rootSql(paths, 'SELECT 1');
     return true;
   });
