@@ -1,5 +1,5 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { DataTable } from '../../../components/data-table';
 import { TextLink } from '../../../components/text-link';
 import { paths } from '../../../config/paths';
 import type { Campaign } from '../api/get-campaigns';
@@ -30,25 +30,6 @@ const columns = [
 export function CampaignRunsTable({ runs }: { runs: Run[] }) {
   const table = useReactTable({ data: runs, columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => String(r.pulsarId) });
   return (
-    <Table aria-label="Runs per pulsar">
-      <THead>
-        {table.getHeaderGroups().map((group) => (
-          <tr key={group.id}>
-            {group.headers.map((header) => (
-              <Th key={header.id}>{flexRender(header.column.columnDef.header, header.getContext())}</Th>
-            ))}
-          </tr>
-        ))}
-      </THead>
-      <TBody>
-        {table.getRowModel().rows.map((row) => (
-          <Tr key={row.id}>
-            {row.getVisibleCells().map((cell) => (
-              <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-            ))}
-          </Tr>
-        ))}
-      </TBody>
-    </Table>
+    <DataTable table={table} aria-label="Runs per pulsar" />
   );
 }

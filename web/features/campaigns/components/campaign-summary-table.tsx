@@ -1,5 +1,5 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { DataTable } from '../../../components/data-table';
 import { TextLink } from '../../../components/text-link';
 import { paths } from '../../../config/paths';
 import { cn } from '../../../lib/cn';
@@ -59,25 +59,6 @@ const columns = [
 export function CampaignSummaryTable({ rows }: { rows: Row[] }) {
   const table = useReactTable({ data: rows, columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => String(r.pulsarId) });
   return (
-    <Table aria-label="What changed">
-      <THead>
-        {table.getHeaderGroups().map((group) => (
-          <tr key={group.id}>
-            {group.headers.map((header) => (
-              <Th key={header.id}>{flexRender(header.column.columnDef.header, header.getContext())}</Th>
-            ))}
-          </tr>
-        ))}
-      </THead>
-      <TBody>
-        {table.getRowModel().rows.map((row) => (
-          <Tr key={row.id}>
-            {row.getVisibleCells().map((cell) => (
-              <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-            ))}
-          </Tr>
-        ))}
-      </TBody>
-    </Table>
+    <DataTable table={table} aria-label="What changed" />
   );
 }

@@ -1,6 +1,6 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
-import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
+import { DataTable } from '../../../components/data-table';
 import { paths } from '../../../config/paths';
 import { formatDateTimeUtc } from '../../../lib/format';
 import { FINAL_CAMPAIGN_STATUSES, type Campaign } from '../api/get-campaigns';
@@ -39,25 +39,6 @@ const columns = [
 export function CampaignTable({ campaigns }: { campaigns: Campaign[] }) {
   const table = useReactTable({ data: campaigns, columns, getCoreRowModel: getCoreRowModel(), getRowId: (c) => String(c.id) });
   return (
-    <Table aria-label="Campaigns">
-      <THead>
-        {table.getHeaderGroups().map((group) => (
-          <tr key={group.id}>
-            {group.headers.map((header) => (
-              <Th key={header.id}>{flexRender(header.column.columnDef.header, header.getContext())}</Th>
-            ))}
-          </tr>
-        ))}
-      </THead>
-      <TBody>
-        {table.getRowModel().rows.map((row) => (
-          <Tr key={row.id}>
-            {row.getVisibleCells().map((cell) => (
-              <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-            ))}
-          </Tr>
-        ))}
-      </TBody>
-    </Table>
+    <DataTable table={table} aria-label="Campaigns" />
   );
 }

@@ -1,5 +1,5 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { DataTable } from '../../../components/data-table';
 import { cn } from '../../../lib/cn';
 import type { FittedParameter } from '../api/get-fit-run';
 import { formatSigma, formatUncertainty } from '../lib/format-fit';
@@ -48,25 +48,6 @@ export function FitParametersTable({ parameters }: { parameters: Record<string, 
   const rows = Object.entries(parameters).map(([path, p]) => ({ path, ...p }));
   const table = useReactTable({ data: rows, columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => r.path });
   return (
-    <Table aria-label="Fitted parameters">
-      <THead>
-        {table.getHeaderGroups().map((group) => (
-          <tr key={group.id}>
-            {group.headers.map((h) => (
-              <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
-            ))}
-          </tr>
-        ))}
-      </THead>
-      <TBody>
-        {table.getRowModel().rows.map((row) => (
-          <Tr key={row.id} className={Math.abs(row.original.changeSigma) > LARGE_CHANGE_SIGMA ? 'bg-ember-500/5' : undefined}>
-            {row.getVisibleCells().map((cell) => (
-              <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-            ))}
-          </Tr>
-        ))}
-      </TBody>
-    </Table>
+    <DataTable table={table} aria-label="Fitted parameters" rowClassName={(row) => (Math.abs(row.original.changeSigma) > LARGE_CHANGE_SIGMA ? 'bg-ember-500/5' : undefined)} />
   );
 }

@@ -1,5 +1,5 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { DataTable } from '../../../components/data-table';
 import { TextLink } from '../../../components/text-link';
 import { paths } from '../../../config/paths';
 import { formatDateTimeUtc } from '../../../lib/format';
@@ -55,25 +55,6 @@ const columns = [
 export function FitRunList({ runs }: { runs: FitRunSummary[] }) {
   const table = useReactTable({ data: runs, columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => String(r.id) });
   return (
-    <Table aria-label="Fit runs">
-      <THead>
-        {table.getHeaderGroups().map((group) => (
-          <tr key={group.id}>
-            {group.headers.map((h) => (
-              <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
-            ))}
-          </tr>
-        ))}
-      </THead>
-      <TBody>
-        {table.getRowModel().rows.map((row) => (
-          <Tr key={row.id}>
-            {row.getVisibleCells().map((cell) => (
-              <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-            ))}
-          </Tr>
-        ))}
-      </TBody>
-    </Table>
+    <DataTable table={table} aria-label="Fit runs" />
   );
 }

@@ -1,6 +1,5 @@
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   getFilteredRowModel,
   getSortedRowModel,
@@ -10,8 +9,8 @@ import {
 } from '@tanstack/react-table';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { DataTable } from '../../../components/data-table';
 import { Input } from '../../../components/input';
-import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
 import { paths } from '../../../config/paths';
 import { formatCount, formatDateTimeUtc, formatMjd } from '../../../lib/format';
 import type { Pulsar } from '../api/get-pulsars';
@@ -103,10 +102,6 @@ const columns = [
   column.accessor((p) => PULSAR_STATUS_LABELS[pulsarStatus(p)], { id: 'status', header: 'Status' }),
 ];
 
-function sortLabel(direction: false | 'asc' | 'desc'): 'ascending' | 'descending' | 'none' {
-  return direction === 'asc' ? 'ascending' : direction === 'desc' ? 'descending' : 'none';
-}
-
 /** All pulsars with their TOAs and latest fit; headers sort, the text box filters. */
 export function PulsarTable({ pulsars }: { pulsars: Pulsar[] }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
@@ -142,53 +137,7 @@ export function PulsarTable({ pulsars }: { pulsars: Pulsar[] }) {
           {shown.length === pulsars.length ? `${pulsars.length} pulsar${pulsars.length === 1 ? '' : 's'}` : `${shown.length} of ${pulsars.length} pulsars`}
         </p>
       </div>
-      <Table aria-label="Pulsars">
-        <THead>
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((header) => {
-                const sorted = header.column.getIsSorted();
-                const label = flexRender(header.column.columnDef.header, header.getContext());
-                return (
-                  <Th key={header.id} aria-sort={header.column.getCanSort() ? sortLabel(sorted) : undefined}>
-                    {header.column.getCanSort() ? (
-                      <button
-                        type="button"
-                        onClick={header.column.getToggleSortingHandler()}
-                        className="inline-flex items-center gap-1 whitespace-nowrap rounded-sm uppercase tracking-wide hover:text-night-100"
-                      >
-                        {label}
-                        <span aria-hidden="true" className="text-ember-400">
-                          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '·'}
-                        </span>
-                      </button>
-                    ) : (
-                      label
-                    )}
-                  </Th>
-                );
-              })}
-            </tr>
-          ))}
-        </THead>
-        <TBody>
-          {shown.length === 0 ? (
-            <tr>
-              <Td colSpan={columns.length} className="py-6 text-center text-night-300">
-                No pulsar matches “{filter.trim()}”.
-              </Td>
-            </tr>
-          ) : (
-            shown.map((row) => (
-              <Tr key={row.id}>
-                {row.getVisibleCells().map((cell) => (
-                  <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-                ))}
-              </Tr>
-            ))
-          )}
-        </TBody>
-      </Table>
+      <DataTable table={table} aria-label="Pulsars" emptyMessage={<>No pulsar matches “{filter.trim()}”.</>} />
     </div>
   );
 }

@@ -1,7 +1,7 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { useMemo } from 'react';
+import { DataTable } from '../../../components/data-table';
 import { ErrorPanel, LoadingPanel } from '../../../components/query-state';
-import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
 import { cn } from '../../../lib/cn';
 import { useRevision } from '../api/get-revision';
 import { modelDiff, type ModelChange } from '../lib/model-diff';
@@ -29,26 +29,7 @@ const columns = [
 function ChangeTable({ changes, label }: { changes: ModelChange[]; label: string }) {
   const table = useReactTable({ data: changes, columns, getCoreRowModel: getCoreRowModel() });
   return (
-    <Table aria-label={label}>
-      <THead>
-        {table.getHeaderGroups().map((g) => (
-          <tr key={g.id}>
-            {g.headers.map((h) => (
-              <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
-            ))}
-          </tr>
-        ))}
-      </THead>
-      <TBody>
-        {table.getRowModel().rows.map((row) => (
-          <Tr key={row.id}>
-            {row.getVisibleCells().map((cell) => (
-              <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-            ))}
-          </Tr>
-        ))}
-      </TBody>
-    </Table>
+    <DataTable table={table} aria-label={label} />
   );
 }
 

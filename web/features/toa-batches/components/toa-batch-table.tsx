@@ -1,9 +1,9 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { Alert } from '../../../components/alert';
 import { Button } from '../../../components/button';
+import { DataTable } from '../../../components/data-table';
 import { describeError } from '../../../components/query-state';
-import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
 import { formatCount, formatDateTimeUtc, formatMjd } from '../../../lib/format';
 import { useDeleteToaBatch } from '../api/delete-toa-batch';
 import type { ToaBatch } from '../api/get-toa-batches';
@@ -63,26 +63,7 @@ export function ToaBatchTable({ batches, canDelete }: { batches: ToaBatch[]; can
   return (
     <>
       {remove.isSuccess ? <Alert tone="success" className="mb-3">The batch and its TOAs were deleted.</Alert> : null}
-      <Table aria-label="TOA batches">
-        <THead>
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((h) => (
-                <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
-              ))}
-            </tr>
-          ))}
-        </THead>
-        <TBody>
-          {table.getRowModel().rows.map((row) => (
-            <Tr key={row.id}>
-              {row.getVisibleCells().map((cell) => (
-                <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-              ))}
-            </Tr>
-          ))}
-        </TBody>
-      </Table>
+      <DataTable table={table} aria-label="TOA batches" />
       {pending ? (
         <ConfirmDialog
           title={`Delete ${pending.fileName}?`}
