@@ -1,3 +1,4 @@
+import { clampPercent, ProgressBar } from '../../../components/progress-bar';
 import { cn } from '../../../lib/cn';
 
 const STATUS_CLASSES: Record<string, string> = {
@@ -16,26 +17,15 @@ export function StatusBadge({ status }: { status: string }) {
 
 /** Progress of a campaign: percent, stage name and done/total runs. */
 export function CampaignProgressBar({ label, percent, stage, done, total }: { label: string; percent: number; stage: string; done: number; total: number }) {
-  const clamped = Math.max(0, Math.min(100, Math.round(Number.isFinite(percent) ? percent : 0)));
+  const clamped = clampPercent(percent);
   return (
-    <div className="min-w-40">
-      <div className="mb-1 flex justify-between gap-3 text-xs text-night-300">
-        <span>{stage}</span>
-        <span className="font-mono">
-          {done}/{total} · {clamped}%
-        </span>
-      </div>
-      <div
-        role="progressbar"
-        aria-label={label}
-        aria-valuemin={0}
-        aria-valuemax={100}
-        aria-valuenow={clamped}
-        aria-valuetext={`${clamped}% — ${stage}, ${done} of ${total} pulsars`}
-        className="h-2 overflow-hidden rounded-full bg-night-800"
-      >
-        <div className="h-full rounded-full bg-ember-500 transition-[width]" style={{ width: `${clamped}%` }} />
-      </div>
-    </div>
+    <ProgressBar
+      className="min-w-40"
+      label={label}
+      percent={clamped}
+      valueText={`${clamped}% — ${stage}, ${done} of ${total} pulsars`}
+      start={stage}
+      end={`${done}/${total} · ${clamped}%`}
+    />
   );
 }

@@ -2,34 +2,12 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { Alert } from '../../../components/alert';
 import { Button } from '../../../components/button';
+import { StageProgressBar } from '../../../components/progress-bar';
 import { describeError } from '../../../components/query-state';
 import { Spinner } from '../../../components/spinner';
 import { useJob } from '../../jobs/api/get-job';
 import { pulsarKeys } from '../api/get-pulsars';
 import { useStartStatisticsJob } from '../api/start-statistics-job';
-
-function ProgressBar({ percent, stage }: { percent: number; stage: string }) {
-  const clamped = Math.max(0, Math.min(100, Math.round(percent)));
-  return (
-    <div>
-      <div className="mb-1 flex justify-between text-xs text-night-300">
-        <span>{stage}</span>
-        <span className="font-mono">{clamped}%</span>
-      </div>
-      <div
-        role="progressbar"
-        aria-label="Recount progress"
-        aria-valuemin={0}
-        aria-valuemax={100}
-        aria-valuenow={clamped}
-        aria-valuetext={`${clamped}% — ${stage}`}
-        className="h-2 overflow-hidden rounded-full bg-night-800"
-      >
-        <div className="h-full rounded-full bg-ember-500 transition-[width]" style={{ width: `${clamped}%` }} />
-      </div>
-    </div>
-  );
-}
 
 function ResultList({ result }: { result: unknown }) {
   if (result === null || typeof result !== 'object') {
@@ -77,7 +55,7 @@ export function StatisticsJobPanel({ pulsarId }: { pulsarId: string }) {
       {jobId !== null && job.isPending ? <Spinner label="Queued…" /> : null}
       {job.isError ? <Alert tone="error" title="Could not follow the job">{describeError(job.error)}</Alert> : null}
       {job.data && running ? (
-        <ProgressBar percent={job.data.progress?.percent ?? 0} stage={job.data.progress?.stage ?? job.data.state} />
+        <StageProgressBar label="Recount progress" percent={job.data.progress?.percent ?? 0} stage={job.data.progress?.stage ?? job.data.state} />
       ) : null}
       {state === 'completed' ? (
         <Alert tone="success" title="Statistics recounted">

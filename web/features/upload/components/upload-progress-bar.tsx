@@ -1,3 +1,4 @@
+import { clampPercent, ProgressBar } from '../../../components/progress-bar';
 import { cn } from '../../../lib/cn';
 import { formatBytes } from '../upload-rules';
 
@@ -35,26 +36,18 @@ export function UploadStageIndicator({ stage }: { stage: UploadStage }) {
 
 /** Byte progress of the request body; indeterminate (no aria-valuenow) when the size is unknown. */
 export function UploadProgressBar({ loadedBytes, totalBytes }: { loadedBytes: number; totalBytes: number | null }) {
-  const percent = totalBytes ? Math.max(0, Math.min(100, Math.round((100 * loadedBytes) / totalBytes))) : null;
+  const percent = totalBytes ? clampPercent((100 * loadedBytes) / totalBytes) : null;
   return (
-    <div>
-      <div className="mb-1 flex justify-between text-xs text-night-300">
+    <ProgressBar
+      label="Upload progress"
+      percent={percent}
+      start={
         <span className="font-mono">
           {formatBytes(loadedBytes)}
           {totalBytes ? ` of ${formatBytes(totalBytes)}` : ''}
         </span>
-        <span className="font-mono">{percent === null ? '…' : `${percent}%`}</span>
-      </div>
-      <div
-        role="progressbar"
-        aria-label="Upload progress"
-        aria-valuemin={0}
-        aria-valuemax={100}
-        aria-valuenow={percent ?? undefined}
-        className="h-2 overflow-hidden rounded-full bg-night-800"
-      >
-        <div className="h-full rounded-full bg-ember-500 transition-[width]" style={{ width: `${percent ?? 100}%` }} />
-      </div>
-    </div>
+      }
+      end={percent === null ? '…' : `${percent}%`}
+    />
   );
 }
