@@ -1,6 +1,7 @@
 /**
  * Decimal text ⇄ double-double, correctly rounded, for the model file's
- * high-precision numbers (spin frequency) and the sexagesimal angles.
+ * high-precision numbers (spin frequency), the sexagesimal angles and the
+ * fractions of MJDs (time/mjd-string.ts).
  *
  * Every double is an integer multiple of 2^-1074, so a double-double hi + lo is
  * exactly N / 2^1074 for a BigInt N; a decimal string is exactly p / q for
@@ -61,11 +62,41 @@ export function parseDecimalToDd(text: string): DoubleDouble {
   }
   const p = exponent10 >= 0 ? digits * 10n ** BigInt(exponent10) : digits;
   const q = exponent10 >= 0 ? 1n : 10n ** BigInt(-exponent10);
+  const nearest = nearestDdToRatio(p, q);
+  if (!Number.isFinite(nearest[1])) throw new RangeError(`"${text}" is out of the range of double precision`);
+  return negative ? [-nearest[0], -nearest[1]] : nearest;
+}
+
+/**
+ * The nearest double-double to the decimal fraction 0.d1d2d3… (the digits after
+ * the point, any number of them; `''` is zero).
+ *
+ * @param fractionDigits  decimal digits only, no sign or point
+ * @returns               [lo, hi] as parseDecimalToDd, with 0 ≤ hi + lo ≤ 1
+ *
+ * Accuracy: exact rounding as parseDecimalToDd (same routine); no digit-count limit.
+ * Throws RangeError when `fractionDigits` holds anything but digits.
+ */
+export function parseDecimalFractionToDd(fractionDigits: string): DoubleDouble {
+  if (!/^\d*$/.test(fractionDigits)) {
+    throw new RangeError(`"${fractionDigits}" is not a string of decimal digits`);
+  }
+  const digits = BigInt(`0${fractionDigits}`);
+  if (digits === 0n) return [0, 0];
+  return nearestDdToRatio(digits, 10n ** BigInt(fractionDigits.length));
+}
+
+/** [lo, hi] nearest p / q (q > 0): hi nearest the ratio, lo nearest ratio − hi (half to even). */
+function nearestDdToRatio(p: bigint, q: bigint): DoubleDouble {
   const hi = nearestDouble(p, q);
-  if (!Number.isFinite(hi)) throw new RangeError(`"${text}" is out of the range of double precision`);
-  // value − hi = (p·2^1074 − N(hi)·q) / (q·2^1074), exactly.
-  const lo = nearestDouble(p * BINARY_SCALE - doubleTimesBinaryScale(hi) * q, q * BINARY_SCALE);
-  return negative ? [-lo, -hi] : [lo, hi];
+  if (!Number.isFinite(hi)) return [0, hi];
+  // hi = s·2^k exactly, so value − hi = (p − s·2^k·q) / q, kept in integers.
+  const [significand, exponent2] = doubleAsSignificandTimesPowerOfTwo(hi);
+  const lo =
+    exponent2 >= 0
+      ? nearestDouble(p - (significand << BigInt(exponent2)) * q, q)
+      : nearestDouble((p << BigInt(-exponent2)) - significand * q, q << BigInt(-exponent2));
+  return [lo, hi];
 }
 
 /**
@@ -110,13 +141,15 @@ function parsesBackTo(text: string, value: DoubleDouble): boolean {
 }
 
 /**
- * round(value · 10^fractionDigits) as an exact BigInt, round half to even.
+ * round((wholeUnits + value) · 10^fractionDigits) as an exact BigInt, round half to even.
  *
  * @param value           [lo, hi], finite
  * @param fractionDigits  decimal places kept, integer ≥ 0
+ * @param wholeUnits      exact integer added to `value` before rounding (default 0),
+ *                        e.g. the day of an `Mjd` whose fraction is `value`
  */
-export function ddToScaledDecimal(value: DoubleDouble, fractionDigits: number): bigint {
-  const n = doubleTimesBinaryScale(value[1]) + doubleTimesBinaryScale(value[0]);
+export function ddToScaledDecimal(value: DoubleDouble, fractionDigits: number, wholeUnits = 0n): bigint {
+  const n = (wholeUnits << BINARY_SCALE_BITS) + doubleTimesBinaryScale(value[1]) + doubleTimesBinaryScale(value[0]);
   return divideRoundHalfEven(n * 10n ** BigInt(fractionDigits), BINARY_SCALE);
 }
 
@@ -205,23 +238,30 @@ function timesPowerOfTwo(x: number, e: number): number {
   return result * 2 ** rest;
 }
 
+/** Bits of n > 0 (read from its hexadecimal text: 4 per digit after the first). */
 function bitLength(n: bigint): number {
-  return n.toString(2).length;
+  const hex = n.toString(16);
+  return (hex.length - 1) * 4 + (32 - Math.clz32(parseInt(hex[0], 16)));
 }
 
-/** x · 2^1074 as an exact BigInt (IEEE 754 binary64 layout). */
-function doubleTimesBinaryScale(x: number): bigint {
-  if (x === 0) return 0n;
+/** [s, k] with x = s · 2^k exactly, s a BigInt (IEEE 754 binary64 layout). */
+function doubleAsSignificandTimesPowerOfTwo(x: number): [bigint, number] {
+  if (x === 0) return [0n, 0];
   float64View[0] = x;
   const bits = bitsView[0];
   const negative = bits >> 63n === 1n;
-  const biasedExponent = (bits >> 52n) & 0x7ffn;
+  const biasedExponent = Number((bits >> 52n) & 0x7ffn);
   const mantissaBits = bits & 0xfffffffffffffn;
   // IEEE 754 binary64: normal x = (2^52 + m)·2^(e−1075); subnormal x = m·2^(−1074).
-  const significand = biasedExponent === 0n ? mantissaBits : mantissaBits | TWO_POW_52;
-  const shift = biasedExponent === 0n ? 0n : biasedExponent - 1n;
-  const magnitude = significand << shift;
-  return negative ? -magnitude : magnitude;
+  const significand = biasedExponent === 0 ? mantissaBits : mantissaBits | TWO_POW_52;
+  const exponent2 = biasedExponent === 0 ? -1074 : biasedExponent - 1075;
+  return [negative ? -significand : significand, exponent2];
+}
+
+/** x · 2^1074 as an exact BigInt (every double is an integer multiple of 2^-1074). */
+function doubleTimesBinaryScale(x: number): bigint {
+  const [significand, exponent2] = doubleAsSignificandTimesPowerOfTwo(x);
+  return significand << BigInt(exponent2 + 1074);
 }
 
 /** round(n / d) for d > 0, ties to even. */

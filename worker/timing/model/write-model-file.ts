@@ -26,11 +26,13 @@ function sameMjd(a: Mjd, b: Mjd): boolean {
  * Decimal text of an epoch with the fewest fractional digits that parseMjd reads
  * back to the identical day and fraction (Note 1).
  *
- * Notes: 1. Epochs that came from decimal text always round-trip this way.
- *           parseMjd is accurate to ~1e-32 day but not correctly rounded, so for
- *           an arbitrary double-double fraction (say, after a fit; about one in
- *           eight) no text reads back bit for bit; the 40-digit text is then
- *           written, which reads back within ~1e-32 day (≈ 1e-27 s).
+ * Notes: 1. parseMjd reads the fraction correctly rounded, so epochs that came
+ *           from decimal text, and any double-double fraction (say, after a fit)
+ *           of at least ~1e-3 day, read back bit for bit within 40 digits
+ *           (tests/engine/model/write-model-file.test.ts). A fraction within a few
+ *           seconds of midnight carries more significant digits than 40 decimals
+ *           hold; the 40-digit text is then written, which reads back within
+ *           ~1e-40 day.
  */
 export function formatMjdRoundTrip(m: Mjd): string {
   for (let digits = 0; digits < MAX_MJD_FRACTION_DIGITS; digits += 1) {
