@@ -4,7 +4,7 @@
  * geometry once, Gauss–Newton fit), with a stage report between them, and the
  * result shaped as the fit run stores it.
  */
-import type { FitParameterResult } from '../../api/contracts/fit-runs';
+import type { FitParameterResult, FitResult } from '../../api/contracts/fit-runs';
 import type { Observatory } from '../timing/earth/observatory';
 import { parameterHandle } from '../timing/model/parameter-paths';
 import { readModelFile } from '../timing/model/read-model-file';
@@ -21,19 +21,8 @@ export interface FitEngineInput {
   maxIterations?: number;
 }
 
-export interface FitEngineOutput {
-  parameters: Record<string, FitParameterResult>;
-  chi2: number;
-  dof: number;
-  reducedChi2: number;
-  weightedRmsUs: number;
-  iterations: number;
-  converged: boolean;
-  warnings: string[];
-  phaseOffsetTurns: number;
-  conditionNumber: number;
-  engineSettings: Record<string, string>;
-  fittedModel: Record<string, unknown>;
+/** The stored fit result (api/contracts/fit-runs.ts) plus the per-TOA arrays the run keeps apart. */
+export interface FitEngineOutput extends FitResult {
   residualUs: Float64Array; // same order as the input TOAs
   uncertaintyUs: Float64Array; // effective uncertainty used by the fit
 }
