@@ -122,10 +122,12 @@ export function createApp(deps: AppDeps): Application {
   app.use('/api', apiNotFound);
 
   if (deps.clientDir && existsSync(path.join(deps.clientDir, 'index.html'))) {
-    const indexHtml = path.join(deps.clientDir, 'index.html');
-    app.use(express.static(deps.clientDir, { index: false }));
+    const clientDir = deps.clientDir;
+    app.use(express.static(clientDir, { index: false }));
     app.use((req, res, next) => {
-      if (req.method === 'GET' || req.method === 'HEAD') res.sendFile(indexHtml); // SPA fallback: the client routes
+      // SPA fallback: the client routes. `root` keeps the dot-file check to the file name, so a checkout under a
+      // dot-folder (e.g. ~/.apps/pulsekeeper or a .data/tmp test folder) still serves its client.
+      if (req.method === 'GET' || req.method === 'HEAD') res.sendFile('index.html', { root: clientDir });
       else next();
     });
   }

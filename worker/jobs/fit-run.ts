@@ -103,7 +103,11 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
     const loaded = await loadToasForFit(trx as unknown as Knex, run.pulsar_id);
     const selection = await loadFitSelection(trx, run.pulsar_id);
     const mjdTexts = await loadStoredMjdTexts(trx, run.pulsar_id);
-    const observatories = (await loadObservatories(trx as unknown as Knex)).map((o) => parseObservatory(o));
+    // Only the sites these TOAs use: an unrelated observatory row can never fail this fit.
+    const usedCodes = new Set(loaded.toas.map((toa) => toa.observatory));
+    const observatories = (await loadObservatories(trx as unknown as Knex))
+      .filter((o) => usedCodes.has(o.code))
+      .map((o) => parseObservatory(o));
     return { revision, loaded, selection, mjdTexts, observatories };
   });
   // The stored hash describes what is fitted now (TOAs may have changed since the run was queued).
