@@ -113,38 +113,39 @@ export function mjdField() {
   });
 }
 
+/** The value as a string, or null after an issue when it is missing or not a string. */
+function requiredText(value: unknown, ctx: RefinementContext): string | null {
+  if (value === undefined) {
+    ctx.addIssue({ code: 'custom', message: 'required key is missing' });
+    return null;
+  }
+  if (typeof value !== 'string') {
+    ctx.addIssue({ code: 'custom', message: `expected a string, got ${describeJsonType(value)}` });
+    return null;
+  }
+  return value;
+}
+
 /** A string field with a custom pattern and message. */
 export function textField(pattern: RegExp, patternMessage: string) {
   return z.unknown().transform((value, ctx): string => {
-    if (value === undefined) {
-      ctx.addIssue({ code: 'custom', message: 'required key is missing' });
+    const text = requiredText(value, ctx);
+    if (text === null) return z.NEVER;
+    if (!pattern.test(text)) {
+      ctx.addIssue({ code: 'custom', message: `"${text}" ${patternMessage}` });
       return z.NEVER;
     }
-    if (typeof value !== 'string') {
-      ctx.addIssue({ code: 'custom', message: `expected a string, got ${describeJsonType(value)}` });
-      return z.NEVER;
-    }
-    if (!pattern.test(value)) {
-      ctx.addIssue({ code: 'custom', message: `"${value}" ${patternMessage}` });
-      return z.NEVER;
-    }
-    return value;
+    return text;
   });
 }
 
 /** A text value converted by `parse` (which throws RangeError with a message naming the text). */
 export function parsedTextField<T>(parse: (text: string) => T) {
   return z.unknown().transform((value, ctx): T => {
-    if (value === undefined) {
-      ctx.addIssue({ code: 'custom', message: 'required key is missing' });
-      return z.NEVER;
-    }
-    if (typeof value !== 'string') {
-      ctx.addIssue({ code: 'custom', message: `expected a string, got ${describeJsonType(value)}` });
-      return z.NEVER;
-    }
+    const text = requiredText(value, ctx);
+    if (text === null) return z.NEVER;
     try {
-      return parse(value);
+      return parse(text);
     } catch (error) {
       ctx.addIssue({ code: 'custom', message: (error as Error).message });
       return z.NEVER;
