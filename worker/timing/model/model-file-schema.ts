@@ -18,10 +18,8 @@ const enabledField = z.boolean({ error: 'expected true or false' }).default(true
 const companionName = textField(PATH_NAME, PATH_NAME_RULE);
 const eccentricity = numberField({ min: 0, below: 1 });
 
-const keplerianFile = z.strictObject({
-  name: companionName,
-  kind: z.literal('keplerian'),
-  enabled: enabledField,
+/** Keys after `enabled` shared by the Keplerian orbit and the orbit with Shapiro and Einstein terms. */
+const keplerianOrbitKeys = {
   period_days: numberField({ above: 0 }),
   projected_semimajor_axis_lt_s: numberField(),
   eccentricity: eccentricity.default(0),
@@ -30,6 +28,13 @@ const keplerianFile = z.strictObject({
   period_derivative: numberField().default(0),
   periastron_advance_deg_per_yr: numberField().default(0),
   einstein_delay_s: numberField().default(0),
+};
+
+const keplerianFile = z.strictObject({
+  name: companionName,
+  kind: z.literal('keplerian'),
+  enabled: enabledField,
+  ...keplerianOrbitKeys,
 });
 
 const lowEccentricityFile = z
@@ -55,14 +60,7 @@ const damourDeruelleFile = z.strictObject({
   name: companionName,
   kind: z.literal('damour-deruelle'),
   enabled: enabledField,
-  period_days: numberField({ above: 0 }),
-  projected_semimajor_axis_lt_s: numberField(),
-  eccentricity: eccentricity.default(0),
-  periastron_longitude_deg: numberField().default(0),
-  periastron_epoch_mjd: mjdField(),
-  period_derivative: numberField().default(0),
-  periastron_advance_deg_per_yr: numberField().default(0),
-  einstein_delay_s: numberField().default(0),
+  ...keplerianOrbitKeys,
   shapiro_range_s: numberField({ min: 0 }).default(0),
   shapiro_shape: numberField({ min: -1, max: 1 }).default(0),
 });
