@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import Decimal from 'decimal.js';
-import { ddToScaledDecimal, formatDoubleDouble, parseDecimalToDd } from '../../../worker/timing/model/decimal-double-double';
+import { ddToScaledDecimal, formatDoubleDouble, parseDecimalFractionToDd, parseDecimalToDd } from '../../../worker/timing/model/decimal-double-double';
 
 Decimal.set({ precision: 400 });
 const bits = new BigUint64Array(1);
@@ -41,6 +41,30 @@ describe('parseDecimalToDd', () => {
   });
 });
 
+describe('parseDecimalFractionToDd', () => {
+  it('reads 0.d1d2… as the nearest double-double (checked with decimal.js), any number of digits', () => {
+    let state = 31337;
+    const digit = () => {
+      state = (state * 1103515245 + 12345) % 2 ** 31;
+      return String(Math.floor((state / 2 ** 31) * 10));
+    };
+    for (let i = 0; i < 100; i += 1) {
+      const digits = Array.from({ length: 1 + ((i * 7) % 45) + (i === 99 ? 900 : 0) }, digit).join('');
+      const dd = parseDecimalFractionToDd(digits);
+      const value = new Decimal(`0.${digits}`);
+      expect(dd[1], digits).toBe(value.toNumber()); // decimal.js toNumber is correctly rounded
+      expect(dd[0], digits).toBe(value.minus(exactDouble(dd[1])).toNumber());
+    }
+  });
+  it('reads no digits or only zeros as zero', () => {
+    expect(parseDecimalFractionToDd('')).toEqual([0, 0]);
+    expect(parseDecimalFractionToDd('000')).toEqual([0, 0]);
+  });
+  it.each(['-1', '1.5', '1e3', ' 1'])('rejects %j', (digits) => {
+    expect(() => parseDecimalFractionToDd(digits)).toThrow(RangeError);
+  });
+});
+
 describe('formatDoubleDouble', () => {
   it('prints the shortest text that reads back identically', () => {
     expect(formatDoubleDouble(parseDecimalToDd('287.45812645130'))).toBe('287.4581264513');
@@ -71,5 +95,10 @@ describe('formatDoubleDouble', () => {
     expect(ddToScaledDecimal(parseDecimalToDd('1.25'), 1)).toBe(12n);
     expect(ddToScaledDecimal(parseDecimalToDd('-1.25'), 1)).toBe(-12n);
     expect(ddToScaledDecimal(parseDecimalToDd('1.75'), 1)).toBe(18n);
+  });
+  it('ddToScaledDecimal adds its whole units before rounding, so ties go to the even total', () => {
+    expect(ddToScaledDecimal([0, 0.5], 0, 1n)).toBe(2n);
+    expect(ddToScaledDecimal([0, 0.5], 0, 2n)).toBe(2n);
+    expect(ddToScaledDecimal([0, 0.25], 1, -1n)).toBe(-8n); // −0.75 → −8 tenths (tie to even)
   });
 });
