@@ -9,10 +9,11 @@ import { Select } from '../../components/select';
 import { TextLink } from '../../components/text-link';
 import { paths } from '../../config/paths';
 import { formatDateTimeUtc } from '../../lib/format';
-import { modelRevisionsQueryOptions, useModelRevision, useModelRevisions } from '../../features/model-editor/api/get-model-revisions';
 import { ModelEditor } from '../../features/model-editor/components/model-editor';
 import { blankModel } from '../../features/model-editor/lib/blank-model';
 import { pulsarQueryOptions, usePulsar } from '../../features/pulsars/api/get-pulsar';
+import { useRevision } from '../../features/revisions/api/get-revision';
+import { revisionsQueryOptions, useRevisions } from '../../features/revisions/api/get-revisions';
 import { RequirePermission } from '../require-permission';
 import { requireSession } from '../session';
 
@@ -21,7 +22,7 @@ export const clientLoader =
   async ({ request, params }: LoaderFunctionArgs) => {
     await requireSession(queryClient, request);
     if (params.id) {
-      await Promise.all([queryClient.prefetchQuery(pulsarQueryOptions(params.id)), queryClient.prefetchQuery(modelRevisionsQueryOptions(params.id))]);
+      await Promise.all([queryClient.prefetchQuery(pulsarQueryOptions(params.id)), queryClient.prefetchQuery(revisionsQueryOptions(params.id))]);
     }
     return null;
   };
@@ -35,10 +36,10 @@ function EditorBody({ pulsarId }: { pulsarId: string }) {
   const [search, setSearch] = useSearchParams();
   const [savedId, setSavedId] = useState<number | null>(null);
   const pulsar = usePulsar(pulsarId);
-  const revisions = useModelRevisions(pulsarId);
+  const revisions = useRevisions(pulsarId);
   const requested = chosenRevisionId(search.get('revision'));
   const revisionId = requested ?? revisions.data?.[0]?.id ?? null;
-  const revision = useModelRevision(revisionId);
+  const revision = useRevision(revisionId);
 
   if (pulsar.isPending || revisions.isPending) return <LoadingPanel label="Loading the model…" />;
   if (pulsar.isError) return <ErrorPanel error={pulsar.error} onRetry={() => void pulsar.refetch()} title="Could not load the pulsar" />;

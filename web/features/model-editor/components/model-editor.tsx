@@ -5,7 +5,7 @@ import { Card, CardTitle } from '../../../components/card';
 import { describeError } from '../../../components/query-state';
 import { isApiError } from '../../../lib/api-client';
 import { useCreateModelRevision } from '../api/create-model-revision';
-import type { ModelRevisionWithModel } from '../api/get-model-revisions';
+import type { RevisionWithModel } from '../../revisions/api/get-revision';
 import { formStateToModel } from '../lib/form-state-to-model';
 import { ASTROMETRY_KEYS, type ModelFormState, type NoiseForm, type OffsetForm } from '../lib/model-form-state';
 import { modelToFormState } from '../lib/model-to-form-state';
@@ -60,7 +60,7 @@ export function ModelEditor({
   pulsarId: string;
   initialModel: unknown;
   parentId: number | null;
-  onSaved: (revision: ModelRevisionWithModel) => void;
+  onSaved: (revision: RevisionWithModel) => void;
 }) {
   const [state, setState] = useState<ModelFormState>(() => modelToFormState(initialModel));
   const [serverErrors, setServerErrors] = useState<ModelFieldError[]>([]);
