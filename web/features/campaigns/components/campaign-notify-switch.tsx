@@ -1,11 +1,11 @@
 import { Alert } from '../../../components/alert';
 import { describeError } from '../../../components/query-state';
 import { cn } from '../../../lib/cn';
-import { useSetCampaignNotification, useSubscriptions } from '../api/campaign-notification';
+import { useNotifications, useSetCampaignNotification } from '../../notifications/api/notifications';
 
 /** "E-mail me when it finishes" for one campaign, read from and written to the caller's subscriptions. */
 export function CampaignNotifySwitch({ campaignId }: { campaignId: number }) {
-  const subscriptions = useSubscriptions();
+  const subscriptions = useNotifications();
   const set = useSetCampaignNotification(campaignId);
   const subscribed = subscriptions.data?.campaignIds.includes(campaignId) ?? false;
   const label = 'E-mail me when this campaign finishes';

@@ -1,8 +1,7 @@
 import { Alert } from '../../../components/alert';
 import { describeError } from '../../../components/query-state';
 import { cn } from '../../../lib/cn';
-import { useNotifications } from '../api/get-notifications';
-import { useSetPulsarNotification } from '../api/set-pulsar-notification';
+import { useNotifications, useSetPulsarNotification } from '../../notifications/api/notifications';
 
 /** "Notify me by e-mail" switch for one pulsar: the initial state comes from the caller's subscriptions. */
 export function NotifyToggle({ pulsarId }: { pulsarId: string }) {
