@@ -1,8 +1,9 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { useEffect, useRef, useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card, CardTitle } from '../../components/card';
 import { EmptyState } from '../../components/empty-state';
+import { Fact } from '../../components/fact';
 import { Page } from '../../components/page';
 import { ErrorPanel, LoadingPanel } from '../../components/query-state';
 import { TextLink } from '../../components/text-link';
@@ -44,15 +45,6 @@ export const clientLoader =
     }
     return null;
   };
-
-function Fact({ label, children }: { label: string; children: ReactNode }) {
-  return (
-    <div>
-      <dt className="text-xs text-night-400">{label}</dt>
-      <dd className="mt-0.5 font-mono text-night-100">{children}</dd>
-    </div>
-  );
-}
 
 const actionLinkClasses =
   'inline-flex h-9 items-center rounded-md border border-night-600 bg-night-800 px-3 text-sm font-medium text-night-100 hover:border-night-500 hover:bg-night-700 focus-ring';

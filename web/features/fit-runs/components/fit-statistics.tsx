@@ -1,17 +1,8 @@
-import type { ReactNode } from 'react';
 import { Alert } from '../../../components/alert';
+import { Fact } from '../../../components/fact';
 import { formatCount } from '../../../lib/format';
 import type { FitResultSummary, FitRun, FitSettings } from '../api/get-fit-run';
 import { formatDurationMs, formatReducedChi2, formatRmsUs } from '../lib/format-fit';
-
-function Fact({ label, children }: { label: string; children: ReactNode }) {
-  return (
-    <div>
-      <dt className="text-xs text-night-400">{label}</dt>
-      <dd className="mt-0.5 font-mono text-night-100">{children}</dd>
-    </div>
-  );
-}
 
 const SETTING_LABELS: Record<string, string> = {
   ephemeris: 'Solar-system ephemeris',

@@ -7,7 +7,7 @@ import { Field } from '../../../components/field';
 import { Input } from '../../../components/input';
 import { describeError } from '../../../components/query-state';
 import { applyServerErrors } from '../../../lib/apply-server-errors';
-import { NewPassword, PASSWORD_MIN_LENGTH } from '../../auth/password-rules';
+import { NewPassword, PASSWORD_MIN_LENGTH, PASSWORDS_DIFFER, passwordsMatch } from '../../auth/password-rules';
 import { useAcceptInvitation } from '../api/accept-invitation';
 
 const AcceptValues = z
@@ -20,10 +20,7 @@ const AcceptValues = z
     password: NewPassword,
     confirmPassword: z.string(),
   })
-  .refine((v) => v.password === v.confirmPassword, {
-    path: ['confirmPassword'],
-    message: 'Confirm password: the two passwords are not the same',
-  });
+  .refine(passwordsMatch, PASSWORDS_DIFFER);
 type AcceptValues = z.infer<typeof AcceptValues>;
 
 export function AcceptInvitationForm({ token, onAccepted }: { token: string; onAccepted: () => void }) {

@@ -1,3 +1,4 @@
+import { Fact } from '../../../components/fact';
 import { formatCount, formatMjd } from '../../../lib/format';
 import type { UploadedBatch } from '../api/upload-toa-batch';
 
@@ -6,15 +7,6 @@ export function spanDays(firstMjd: string | null, lastMjd: string | null): strin
   if (!firstMjd || !lastMjd) return '—';
   const days = Number(lastMjd) - Number(firstMjd);
   return Number.isFinite(days) ? `${days.toFixed(1)} days` : '—';
-}
-
-function Fact({ label, children }: { label: string; children: React.ReactNode }) {
-  return (
-    <div>
-      <dt className="text-xs text-night-400">{label}</dt>
-      <dd className="mt-0.5 font-mono text-night-100">{children}</dd>
-    </div>
-  );
 }
 
 /** What a stored upload holds. */
