@@ -53,7 +53,9 @@ function securityHeaders(behindTls: boolean) {
       directives: {
         defaultSrc: ["'self'"],
         scriptSrc: ["'self'"],
-        styleSrc: ["'self'"],
+        // Plotly positions its legend, axis titles and toolbar with inline styles; without this the residual plot
+        // renders scrambled. Scripts stay strictly 'self' (inline styles cannot run code).
+        styleSrc: ["'self'", "'unsafe-inline'"],
         fontSrc: ["'self'"],
         imgSrc: ["'self'", 'data:'],
         connectSrc: ["'self'"],

@@ -100,8 +100,10 @@ describe('errors', () => {
     const csp = res.headers['content-security-policy'];
     expect(csp).toContain("default-src 'self'");
     expect(csp).toContain("script-src 'self'");
-    expect(csp).toContain("style-src 'self'");
-    expect(csp).not.toContain('unsafe-inline');
+    const directives = new Map(csp.split(';').map((d: string) => { const [name, ...values] = d.trim().split(/\s+/); return [name, values]; }));
+    expect(directives.get('script-src')).toEqual(["'self'"]); // no inline or foreign scripts
+    expect(directives.get('script-src-attr')).toEqual(["'none'"]);
+    expect(directives.get('style-src')).toEqual(["'self'", "'unsafe-inline'"]); // Plotly's inline styles, nothing foreign
     expect(csp).toContain("frame-ancestors 'none'");
     expect(res.headers['cache-control']).toBe('no-store');
     expect(res.headers['x-powered-by']).toBeUndefined();

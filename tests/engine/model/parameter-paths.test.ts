@@ -47,6 +47,13 @@ describe('parameterHandle', () => {
     expect(m.spin.frequencyHz).toEqual([0, 173.5]);
     expect(h.formatValue(parseDecimalToDd('173.687946184226345678901234567'))).toBe('173.687946184226345678901234567');
   });
+  it('prints a float64 parameter as its shortest round-trip text, not the binary expansion', () => {
+    const m = full();
+    const dm = parameterHandle(m, 'dispersion.dm_pc_per_cm3');
+    expect(dm.formatValue([0, 48.3])).toBe('48.3');
+    expect(dm.formatValue(parseDecimalToDd('48.3'))).toBe('48.3'); // a fit value carried in double-double
+    expect(parameterHandle(m, 'spin.frequency_derivatives[0]').formatValue([0, -4.0856813781514973e-16])).toBe('-4.0856813781514973e-16');
+  });
   it('names derivative units by order', () => {
     const m = full();
     expect(parameterHandle(m, 'spin.frequency_derivatives[0]').internalUnit).toBe('Hz/s');

@@ -91,7 +91,8 @@ function numberHandle(path: string, unit: string, read: (m: TimingModel) => numb
     get: (m) => [0, read(m)],
     set: (m, value) => write(m, ddToNumber(value)),
     toFileUncertainty: (sigma) => sigma,
-    formatValue: (value) => formatDoubleDouble([0, ddToNumber(value)]),
+    // A float64 field: its shortest round-trip text (48.3, not the 40 digits of the binary double).
+    formatValue: (value) => String(ddToNumber(value)),
   };
 }
 
