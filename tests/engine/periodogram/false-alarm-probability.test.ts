@@ -1,4 +1,6 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { lombScargleDirect } from '../../../worker/timing/periodogram/lomb-scargle-direct';
 import {
   bootstrapMaxPowers,
   falseAlarmBaluev,
@@ -103,8 +105,33 @@ function weightsOf(sigma: Float64Array): Float64Array {
   return sigma.map((s) => 1 / (s * s));
 }
 
+const astropyFixture = JSON.parse(
+  readFileSync(new URL('../../fixtures/periodogram/false-alarm-astropy.json', import.meta.url), 'utf8'),
+) as { tDays: number[]; sigma: number[]; fMaxPerDay: number; powers: number[]; falseAlarmProbabilities: number[] };
+
+describe('test-local cached periodogram', () => {
+  it('equals the engine direct sum lombScargleDirect to 1e-9 relative (so the fast bootstrap uses the same statistic)', () => {
+    const { tDays, y, sigma } = makeDataSet(100, 0.6, 21);
+    const grid = makeGrid(1000, 0.03);
+    const fast = makeCachedGls()(tDays, y, sigma, grid);
+    const direct = lombScargleDirect(tDays, y, sigma, grid);
+    for (let k = 0; k < grid.length; k++) expect(Math.abs(fast[k] - direct[k])).toBeLessThanOrEqual(1e-9 * direct[k] + 1e-14);
+  });
+});
+
 describe('falseAlarmBaluev', () => {
   const { tDays } = makeDataSet(120, 0, 11);
+
+  it('equals astropy 5.2.1 method="baluev" (general-purpose reference library) to 1e-10 relative', () => {
+    // Source: tests/fixtures/scripts/false_alarm_reference.py (astropy 5.2.1, standard normalisation)
+    const t = Float64Array.from(astropyFixture.tDays);
+    const w = Float64Array.from(astropyFixture.sigma, (s) => 1 / (s * s));
+    astropyFixture.powers.forEach((p, k) => {
+      const expected = astropyFixture.falseAlarmProbabilities[k];
+      const got = falseAlarmBaluev(p, t.length, astropyFixture.fMaxPerDay, t, w);
+      expect(Math.abs(got - expected)).toBeLessThanOrEqual(1e-10 * expected);
+    });
+  });
 
   it('goes to 1 as the power goes to 0 and to 0 as it goes to 1, monotonically in between', () => {
     expect(falseAlarmBaluev(0, 120, 0.05, tDays)).toBe(1);
@@ -148,8 +175,8 @@ describe('falseAlarmBaluev', () => {
 });
 
 describe('falseAlarmBootstrap', () => {
-  it('is reproducible from its seed and reports a binomial uncertainty', () => {
-    const gls = makeCachedGls();
+  it('is reproducible from its seed and reports a binomial uncertainty (engine direct periodogram)', () => {
+    const gls = lombScargleDirect;
     const { tDays, y, sigma } = makeDataSet(60, 0.3, 5);
     const grid = makeGrid(1000, 0.02);
     const observed = maxOf(gls(tDays, y, sigma, grid));
