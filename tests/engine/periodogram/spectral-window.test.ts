@@ -32,6 +32,18 @@ describe('spectralWindow', () => {
     expect(flat[1]).toBeCloseTo(1, 14);
   });
 
+  it('seasonal sampling (6 months on, 6 off) puts a strong window peak at 1 cycle per year (common practice)', () => {
+    const t: number[] = [];
+    for (let d = 0; d < 6 * 365.25; d += 3) if (d % 365.25 < 182) t.push(d);
+    const tDays = Float64Array.from(t);
+    const freqs = Float64Array.from({ length: 400 }, (_, k) => 0.0015 + k * 0.00001); // 0.0015–0.0055 per day
+    const win = spectralWindow(tDays, new Float64Array(t.length).fill(1), freqs);
+    let best = 0;
+    for (let k = 1; k < win.length; k++) if (win[k] > win[best]) best = k;
+    expect(Math.abs(freqs[best] - 1 / 365.25)).toBeLessThan(1e-4); // within the span's resolution 1/(6 yr)
+    expect(win[best]).toBeGreaterThan(0.3); // square wave of 50 % duty: first harmonic (2/π)² ≈ 0.41
+  });
+
   it('rejects bad weights', () => {
     const t = Float64Array.of(0, 1);
     expect(() => spectralWindow(t, Float64Array.of(1), Float64Array.of(0.1))).toThrow(RangeError);
