@@ -95,6 +95,8 @@ describe('a worker killed with SIGKILL during a fit', () => {
     const residualRows = await t.knex('fit_residuals').where({ fit_run_id: id }).select('count');
     expect(residualRows).toEqual([{ count: TOA_COUNT }]);
 
+    // BullMQ marks the job completed just after the processor returns, i.e. after the run row was committed.
+    await waitFor('BullMQ to mark the job completed', async () => (await (await t.queue.getJob(`fit-run-${id}`))?.isCompleted()) === true, 30_000);
     const job = await t.queue.getJob(`fit-run-${id}`);
     expect(job?.stalledCounter ?? 0).toBeGreaterThanOrEqual(1); // the first attempt was taken back by stall detection
     expect(await job?.isCompleted()).toBe(true);
