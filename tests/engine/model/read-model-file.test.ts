@@ -1,24 +1,13 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { TimingInputError } from '../../../worker/timing/engine-error';
 import { readModelFile, readModelText } from '../../../worker/timing/model/read-model-file';
 import { parseHms, parseDms } from '../../../worker/timing/model/sexagesimal';
 import { parseDecimalToDd } from '../../../worker/timing/model/decimal-double-double';
 import { parseMjd } from '../../../worker/timing/time/mjd-string';
+import { inputError } from '../helpers/input-error';
 
 const fixture = (name: string) => readFileSync(new URL(`../../fixtures/formats/${name}`, import.meta.url), 'utf8');
 const example = () => JSON.parse(fixture('example-model.json'));
-
-/** The TimingInputError thrown by `run`. */
-function inputError(run: () => unknown): TimingInputError {
-  try {
-    run();
-  } catch (error) {
-    expect(error).toBeInstanceOf(TimingInputError);
-    return error as TimingInputError;
-  }
-  throw new Error('expected a TimingInputError');
-}
 
 describe('readModelFile: the documented example', () => {
   it('reads every key into the model', () => {

@@ -2,11 +2,11 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { TimingInputError } from '../../../worker/timing/engine-error';
 import { builtinObservatories } from '../../../worker/timing/earth/builtin-observatories';
 import { loadObservatories, observatoryFileSchema, parseObservatory, parseObservatoryList } from '../../../worker/timing/earth/read-observatories';
 import { compareMjd } from '../../../worker/timing/time/mjd-arithmetic';
 import { parseMjd } from '../../../worker/timing/time/mjd-string';
+import { inputError } from '../helpers/input-error';
 
 const site = () => ({
   code: 'test-dish',
@@ -16,16 +16,6 @@ const site = () => ({
   itrf_z_m: 3_950_000, // √(4² + 3² + 3.95²) Mm = 6371.97 km
   clock_corrections: [{ mjd: '58000', correction_us: 0.5 }, { mjd: 58100.5, correction_us: '-0.25' }],
 });
-
-function inputError(run: () => unknown): TimingInputError {
-  try {
-    run();
-  } catch (error) {
-    expect(error).toBeInstanceOf(TimingInputError);
-    return error as TimingInputError;
-  }
-  throw new Error('expected a TimingInputError');
-}
 
 describe('parseObservatory', () => {
   it('reads a valid observatory', () => {
