@@ -26,6 +26,11 @@ export const paths = {
   campaign: { path: '/campaigns/:id', href: (id: string | number) => `/campaigns/${encodeURIComponent(String(id))}` },
   pulsarUpload: { path: '/pulsars/:id/upload', href: (id: string) => `/pulsars/${encodeURIComponent(id)}/upload` },
   fitRun: { path: '/fit-runs/:id', href: (id: string) => `/fit-runs/${encodeURIComponent(id)}` },
+  residualExplorer: {
+    path: '/pulsars/:id/explorer',
+    href: (id: string, fitRunId?: number | string) =>
+      `/pulsars/${encodeURIComponent(id)}/explorer${fitRunId === undefined ? '' : `?fit=${encodeURIComponent(String(fitRunId))}`}`,
+  },
   observatories: { path: '/observatories', href: () => '/observatories' },
   users: { path: '/users', href: () => '/users' },
   outbox: { path: '/outbox', href: () => '/outbox' },
