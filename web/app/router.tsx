@@ -50,6 +50,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.pulsars.path, ...page(() => import('./routes/pulsars')) },
             { path: paths.pulsar.path, ...page(() => import('./routes/pulsar')) },
             { path: paths.fitRun.path, ...page(() => import('./routes/fit-run')) },
+            { path: paths.searchRun.path, ...page(() => import('./routes/search-run')) },
             { path: paths.residualExplorer.path, ...page(() => import('./routes/residual-explorer')) },
             { path: paths.pulsarUpload.path, ...page(() => import('./routes/upload')) },
             { path: paths.pulsarModel.path, ...page(() => import('./routes/model-editor')) },

@@ -26,6 +26,7 @@ export const paths = {
   campaign: { path: '/campaigns/:id', href: (id: string | number) => `/campaigns/${encodeURIComponent(String(id))}` },
   pulsarUpload: { path: '/pulsars/:id/upload', href: (id: string) => `/pulsars/${encodeURIComponent(id)}/upload` },
   fitRun: { path: '/fit-runs/:id', href: (id: string) => `/fit-runs/${encodeURIComponent(id)}` },
+  searchRun: { path: '/search-runs/:id', href: (id: string | number) => `/search-runs/${encodeURIComponent(String(id))}` },
   residualExplorer: {
     path: '/pulsars/:id/explorer',
     href: (id: string, fitRunId?: number | string) =>
