@@ -20,6 +20,11 @@ export const CampaignJob = z.object({ campaignId: z.number().int().positive() })
 export type CampaignJob = z.infer<typeof CampaignJob>;
 export const CAMPAIGN_JOB_TYPE = 'campaign';
 
+/** Payload of the `search-run` job (companion search): the search_runs row holds everything else (api/services/search-runs/create-search-run.ts). */
+export const SearchRunJob = z.object({ searchRunId: z.number().int().positive() }).strict();
+export type SearchRunJob = z.infer<typeof SearchRunJob>;
+export const SEARCH_RUN_JOB_TYPE = 'search-run';
+
 /** Progress as reported by every job: a percentage and a stage name for the progress bar. */
 export const JobProgress = z.object({ percent: z.number().min(0).max(100), stage: z.string() });
 export type JobProgress = z.infer<typeof JobProgress>;

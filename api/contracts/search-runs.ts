@@ -116,36 +116,72 @@ export interface SearchDerivedMasses {
   separationAu: number; // Kepler's third law with pulsar mass + minimum companion mass
 }
 
+/** The F-test deciding whether eccentricity and periastron longitude are fitted. */
+export interface SearchEccentricityTest {
+  attempted: boolean; // false when the eccentric fit could not be done (statistic 0, probability 1)
+  statistic: number;
+  probability: number;
+  kept: boolean; // the eccentric orbit was kept
+}
+
+export const SEARCH_CANDIDATE_STATUSES = ['accepted', 'unstable', 'degenerate'] as const;
+export type SearchCandidateStatus = (typeof SEARCH_CANDIDATE_STATUSES)[number];
+
 /**
- * A companion candidate from one round. `accepted` false: the fit was unstable
- * or degenerate (eccentricity → 1, period beyond the span, …) and the companion
- * is not in the resulting model; `rejectedReason` says why.
+ * A companion candidate from one round. Only `accepted` candidates are in the
+ * resulting model; an `unstable` or `degenerate` one (eccentricity → 1, period
+ * beyond the span, …) is reported with `reason` and is not a discovery.
  */
 export interface SearchCandidate {
   round: number;
-  name: string; // the companion's name in the resulting model
+  name: string; // the companion's name (in the resulting model when accepted)
   kind: string; // 'keplerian'
-  accepted: boolean;
-  rejectedReason: string | null;
+  status: SearchCandidateStatus;
+  reason: string | null; // why unstable or degenerate; null when accepted
   falseAlarmProbability: number; // of the peak that seeded it
-  elements: Record<string, SearchValue>; // keyed by the model file's companion field names (period_days, …)
+  seedPeriodDays: number; // the seeding peak's period
+  elements: Record<string, SearchValue>; // fitted elements keyed by the companion's file field names (period_days, …)
   chi2Before: number;
   chi2After: number;
   chi2Change: number; // chi2After − chi2Before (negative: better)
-  eccentricityAdopted: boolean; // eccentricity and periastron longitude fitted (F-test passed)
-  derived: SearchDerivedMasses | null;
-  warnings: string[];
+  eccentricityTest: SearchEccentricityTest;
+  converged: boolean;
+  derived: SearchDerivedMasses;
+}
+
+export const SEARCH_STOP_REASONS = ['false-alarm-above-threshold', 'max-companions', 'candidate-rejected', 'no-frequencies'] as const;
+export type SearchStopReason = (typeof SEARCH_STOP_REASONS)[number];
+
+/** The settings the engine actually used (periods resolved from the data when not given). */
+export interface SearchResolvedSettings {
+  minPeriodDays: number;
+  maxPeriodDays: number;
+  maxCompanions: number;
+  falseAlarmThreshold: number;
+  eccentricityThreshold: number;
+  pulsarMassSolar: number;
+  oversampling: number;
+  frequencyCount: number;
+  spanDays: number;
 }
 
 export interface SearchResult {
   peaks: SearchPeak[]; // one per round; the last is the one that stopped the search
-  candidates: SearchCandidate[];
+  candidates: SearchCandidate[]; // round order, accepted or not
   companionsFound: number; // accepted candidates
-  initialFit: { chi2: number; dof: number; reducedChi2: number; weightedRmsUs: number };
-  finalFit: { chi2: number; dof: number; reducedChi2: number; weightedRmsUs: number; converged: boolean };
-  stopReason: string; // why the search stopped (threshold, max companions, unstable fit, …)
-  warnings: string[];
-  engineSettings: Record<string, string>; // as the engine reported them
+  stopReason: SearchStopReason;
+  finalFit: {
+    chi2: number;
+    dof: number;
+    reducedChi2: number;
+    weightedRmsUs: number;
+    converged: boolean;
+    iterations: number;
+    parameters: Record<string, SearchValue>; // every fitted parameter of the resulting model, by solve_for path
+  };
+  warnings: string[]; // the search's and the final fit's
+  searchSettings: SearchResolvedSettings;
+  engineSettings: Record<string, string>; // periodogram method, ephemeris, clock, time scale, … as the engine reported them
   resultingModel: Record<string, unknown>; // the model file JSON (docs/formats.md §2) with the accepted companions
 }
 
@@ -170,9 +206,14 @@ export interface SearchRun {
   result: SearchResult | null;
 }
 
-/** SearchRun in lists: the result without candidates' elements and without the resulting model. */
+/** SearchRun in lists: the result without candidates' elements, the final fit's parameters and the resulting model. */
 export type SearchRunSummary = Omit<SearchRun, 'result'> & {
-  result: (Omit<SearchResult, 'candidates' | 'resultingModel'> & { candidates: Omit<SearchCandidate, 'elements'>[] }) | null;
+  result:
+    | (Omit<SearchResult, 'candidates' | 'resultingModel' | 'finalFit'> & {
+        candidates: Omit<SearchCandidate, 'elements'>[];
+        finalFit: Omit<SearchResult['finalFit'], 'parameters'>;
+      })
+    | null;
 };
 
 /** One round's periodogram on its regular frequency grid f_k = minFrequencyPerDay + k·stepPerDay. */
