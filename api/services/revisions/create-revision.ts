@@ -1,9 +1,11 @@
 /**
  * Saves a new model revision: the model is checked by the engine's reader and
  * stored exactly as the engine re-writes it (readModelFile → writeModelFile),
- * so every stored revision reads back to the same model.
+ * so every stored revision reads back to the same model. The save is
+ * audit-logged (`revision.create`) in the same transaction.
  */
 import type { Knex } from 'knex';
+import { recordAudit } from '../../db/audit-log';
 import { findRevision, insertRevision, presentRevisionWithModel, type RevisionWithModel } from '../../db/revisions';
 import { fieldError, notFound, validationError } from '../../errors';
 import { TimingInputError } from '../../../worker/timing/engine-error';
@@ -39,12 +41,11 @@ export async function createRevision(knex: Knex, pulsarId: number, authorId: num
     const parent = await findRevision(knex, input.parentId);
     if (!parent || parent.pulsar_id !== pulsarId) throw fieldError(['parentId'], 'not a revision of this pulsar');
   }
-  const id = await insertRevision(knex, {
-    pulsarId,
-    parentId: input.parentId ?? null,
-    authorId,
-    message: input.message,
-    modelJson: JSON.stringify(writeModelFile(model)),
+  const modelJson = JSON.stringify(writeModelFile(model));
+  const id = await knex.transaction(async (trx) => {
+    const newId = await insertRevision(trx, { pulsarId, parentId: input.parentId ?? null, authorId, message: input.message, modelJson });
+    await recordAudit(trx, { pulsarId, userId: authorId, action: 'revision.create', details: { revisionId: newId, message: input.message, parentId: input.parentId ?? null } });
+    return newId;
   });
   const row = await findRevision(knex, id);
   if (!row) throw new Error(`revision ${id} vanished after insert`);
