@@ -1,0 +1,81 @@
+import { fitSinusoidAtFrequency } from './sinusoid-fit';
+import { addDaysToMjdText } from './mjd-text';
+
+const MICROSECONDS_PER_SECOND = 1e6;
+
+/** A companion of the model file (docs/formats.md §2) seeded from a periodogram peak: circular Keplerian orbit. */
+export interface SeededCompanion {
+  name: string;
+  kind: 'keplerian';
+  enabled: true;
+  period_days: string;
+  projected_semimajor_axis_lt_s: string;
+  eccentricity: 0;
+  periastron_longitude_deg: 0;
+  periastron_epoch_mjd: string;
+}
+
+/** The seed and how well the residuals fix it. */
+export interface CompanionSeed {
+  companion: SeededCompanion;
+  /** fitted semi-amplitude of the residual sinusoid, µs, and its 1σ */
+  amplitudeUs: number;
+  amplitudeUncertaintyUs: number;
+}
+
+/**
+ * A circular Keplerian companion whose delay matches the sinusoid in the residuals at `freqPerDay`.
+ *
+ * @param tDays         sample times, days since `referenceMjd` (TDB at the barycentre)
+ * @param residualUs    residuals, µs (observed − model, so a missing companion shows as +delay, Note 1)
+ * @param uncertaintyUs residual 1σ, µs
+ * @param freqPerDay    frequency of the chosen peak, cycles per day
+ * @param referenceMjd  MJD text of tDays' origin
+ * @param name          the new companion's name
+ * @returns             the companion (period, projected semi-major axis, e = 0, ω = 0, epoch) and the amplitude
+ *
+ * Notes: 1. For e = 0 and ω = 0 the orbital (Roemer) delay is x·sin(2π(t − T₀)/P_b)
+ *    (Blandford & Teukolsky 1976, ApJ 205, 580, their orbit delay with e = 0); the engine subtracts it
+ *    from the arrival time, so residuals without the companion carry +delay. Hence x = A (µs → lt-s)
+ *    and T₀ = the upward zero crossing of the fitted sinusoid, put within one period after referenceMjd.
+ *    The fitted sinusoid amplitude is the seed; a fit refines it (the timing model's other terms
+ *    may have absorbed part of the signal).
+ * References: Blandford & Teukolsky 1976, ApJ 205, 580.
+ */
+export function seedCompanionFromPeak(
+  tDays: Float64Array,
+  residualUs: Float64Array,
+  uncertaintyUs: Float64Array,
+  freqPerDay: number,
+  referenceMjd: string,
+  name: string,
+): CompanionSeed {
+  const sinusoid = fitSinusoidAtFrequency(tDays, residualUs, uncertaintyUs, freqPerDay);
+  const periodDays = 1 / freqPerDay;
+  const xLtS = sinusoid.amplitude / MICROSECONDS_PER_SECOND; // delay = x·sin(2π(t − T₀)/P_b) for e = 0: Blandford & Teukolsky 1976
+  return {
+    companion: {
+      name,
+      kind: 'keplerian',
+      enabled: true,
+      period_days: periodDays.toPrecision(9),
+      projected_semimajor_axis_lt_s: xLtS.toPrecision(4),
+      eccentricity: 0,
+      periastron_longitude_deg: 0,
+      periastron_epoch_mjd: addDaysToMjdText(referenceMjd, sinusoid.zeroPhaseDays, 6),
+    },
+    amplitudeUs: sinusoid.amplitude,
+    amplitudeUncertaintyUs: sinusoid.amplitudeUncertainty,
+  };
+}
+
+/** The first free one-letter companion name from "b" on ("b", "c", …), or "companion-N" past "z". */
+export function freeCompanionName(taken: readonly string[]): string {
+  for (let code = 'b'.charCodeAt(0); code <= 'z'.charCodeAt(0); code++) {
+    const name = String.fromCharCode(code);
+    if (!taken.includes(name)) return name;
+  }
+  let k = 1;
+  while (taken.includes(`companion-${k}`)) k++;
+  return `companion-${k}`;
+}

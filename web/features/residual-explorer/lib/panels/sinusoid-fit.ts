@@ -1,0 +1,98 @@
+/** A sinusoid fitted at one fixed frequency: y ≈ offset + amplitude·sin(2π·f·(t − zeroPhaseDays)). */
+export interface FixedFrequencySinusoid {
+  /** semi-amplitude, same unit as y; ≥ 0 */
+  readonly amplitude: number;
+  /** formal 1σ of the amplitude, same unit as y */
+  readonly amplitudeUncertainty: number;
+  /** a time (days, same origin as tDays) where the sinusoid crosses its offset upwards; in [0, 1/f) */
+  readonly zeroPhaseDays: number;
+  /** constant term, same unit as y */
+  readonly offset: number;
+}
+
+/**
+ * Weighted least-squares fit of y = c + a·cos ωt + b·sin ωt at a fixed ω = 2πf (the model whose
+ * χ² reduction the generalized Lomb–Scargle power measures), returned as amplitude and phase.
+ *
+ * @param tDays       sample times, days (any origin; centred internally, Note 1)
+ * @param y           samples, any unit
+ * @param sigma       1σ uncertainties of y, same unit; > 0
+ * @param freqPerDay  the frequency, cycles per day; > 0
+ * @returns           amplitude A = √(a² + b²), its 1σ, the upward zero crossing and the offset (Note 2)
+ *
+ * Notes:
+ * 1. The times are centred on their weighted mean before ωt is formed, which keeps the phase small
+ *    and the 3×3 normal equations well conditioned; the crossing is shifted back afterwards.
+ * 2. a·cos ωt + b·sin ωt = A·sin(ω(t − t₀)) with A = √(a² + b²), ωt₀ = −atan2(a, b).
+ *    σ_A from the covariance: σ_A² = (a²·Caa + 2ab·Cab + b²·Cbb)/A² (first-order propagation).
+ * Throws RangeError for fewer than 3 samples, mismatched lengths, σ ≤ 0 or f ≤ 0, or when the
+ * normal equations are singular (all samples at one phase).
+ * References: Zechmeister & Kürster 2009, A&A 496, 577, §2 (the floating-mean sinusoid model);
+ *   Press et al. 2007, Numerical Recipes 3rd ed., §15.4 (normal equations and covariance).
+ */
+export function fitSinusoidAtFrequency(
+  tDays: Float64Array,
+  y: Float64Array,
+  sigma: Float64Array,
+  freqPerDay: number,
+): FixedFrequencySinusoid {
+  const n = tDays.length;
+  if (n < 3) throw new RangeError(`tDays: need at least 3 samples, got ${n}`);
+  if (y.length !== n || sigma.length !== n) throw new RangeError(`y (${y.length}) and sigma (${sigma.length}) must match tDays (${n})`);
+  if (!(freqPerDay > 0) || !Number.isFinite(freqPerDay)) throw new RangeError(`freqPerDay: must be finite and > 0, got ${freqPerDay}`);
+  let sumW = 0;
+  let sumWt = 0;
+  for (let i = 0; i < n; i++) {
+    if (!(sigma[i] > 0) || !Number.isFinite(sigma[i])) throw new RangeError(`sigma[${i}]: must be finite and > 0, got ${sigma[i]}`);
+    const w = 1 / (sigma[i] * sigma[i]);
+    sumW += w;
+    sumWt += w * tDays[i];
+  }
+  const centreDays = sumWt / sumW;
+  const omega = 2 * Math.PI * freqPerDay;
+  // Normal matrix A = Σ w·g·gᵀ and right side Σ w·g·y for the basis g = (1, cos ωt, sin ωt).
+  const m = new Float64Array(9);
+  const r = new Float64Array(3);
+  for (let i = 0; i < n; i++) {
+    const w = 1 / (sigma[i] * sigma[i]);
+    const phase = omega * (tDays[i] - centreDays);
+    const g = [1, Math.cos(phase), Math.sin(phase)];
+    for (let j = 0; j < 3; j++) {
+      r[j] += w * g[j] * y[i];
+      for (let k = 0; k < 3; k++) m[3 * j + k] += w * g[j] * g[k];
+    }
+  }
+  const cov = invertSymmetric3(m);
+  const coef = [0, 1, 2].map((j) => cov[3 * j] * r[0] + cov[3 * j + 1] * r[1] + cov[3 * j + 2] * r[2]);
+  const [offset, a, b] = coef;
+  const amplitude = Math.hypot(a, b);
+  const amplitudeUncertainty =
+    amplitude > 0
+      ? Math.sqrt((a * a * cov[4] + 2 * a * b * cov[5] + b * b * cov[8]) / (amplitude * amplitude)) // first-order propagation of (a, b) → A
+      : Math.sqrt(0.5 * (cov[4] + cov[8]));
+  const periodDays = 1 / freqPerDay;
+  const crossingCentred = -Math.atan2(a, b) / omega; // a·cos ωt + b·sin ωt = A·sin(ω(t − t₀)), ωt₀ = −atan2(a, b)
+  const zeroPhaseDays = positiveModulo(crossingCentred + centreDays, periodDays);
+  return { amplitude, amplitudeUncertainty, zeroPhaseDays, offset };
+}
+
+/** x mod m in [0, m). */
+export function positiveModulo(x: number, m: number): number {
+  const r = x % m;
+  return r < 0 ? r + m : r;
+}
+
+/** Inverse of a symmetric 3×3 matrix (row-major) by cofactors; RangeError when singular. */
+function invertSymmetric3(m: Float64Array): Float64Array {
+  const [a, b, c, , d, e, , , f] = m;
+  const c00 = d * f - e * e;
+  const c01 = c * e - b * f;
+  const c02 = b * e - c * d;
+  const det = a * c00 + b * c01 + c * c02;
+  const scale = Math.abs(a * d * f) || 1;
+  if (!(Math.abs(det) > 1e-12 * scale)) throw new RangeError('fitSinusoidAtFrequency: the samples do not constrain a sinusoid at this frequency (singular normal equations)');
+  const c11 = a * f - c * c;
+  const c12 = b * c - a * e;
+  const c22 = a * d - b * b;
+  return Float64Array.from([c00, c01, c02, c01, c11, c12, c02, c12, c22].map((v) => v / det));
+}
