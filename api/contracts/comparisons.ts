@@ -109,6 +109,8 @@ export interface NestedPairTest {
 export type ComparisonWarningCode =
   | 'settings-differ' // ephemeris, clock, time-scale or other engine settings differ
   | 'toas-differ' // the runs fitted different TOA sets
+  | 'weights-differ' // same TOAs, but different effective uncertainties (noise settings), so χ² weighs them differently
+  | 'not-nested' // a pair nests by free parameters but holds a shared fixed parameter at different values (no F-test)
   | 'not-converged' // at least one fit did not converge
   | 'fit-warnings'; // at least one fit reported warnings
 
