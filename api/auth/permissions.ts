@@ -24,6 +24,7 @@ export const PERMISSIONS = {
   'jobs:start': ANALYST_UP,
   'jobs:read': ALL,
   'campaigns:read': ALL,
+  'audit-log:read': ANALYST_UP, // the log names people with their e-mail addresses
   // later issues
   'toas:upload': OBSERVER_UP,
   'toas:exclude': ANALYST_UP,
