@@ -32,6 +32,8 @@ import { addExclusionRoutes } from './routes/exclusions/router';
 import { addToaBatchRoutes } from './routes/toa-batches/router';
 import { addToaRoutes } from './routes/toas/router';
 import { addUserRoutes } from './routes/users/router';
+import { addComparisonRoutes } from './routes/comparisons/router';
+import { addAuditLogRoutes } from './routes/audit-log/router';
 
 export const SESSION_COOKIE_NAME = 'pk.sid';
 export const SESSION_IDLE_MS = 8 * 60 * 60 * 1000; // rolling: each request restarts the 8 h
@@ -121,6 +123,8 @@ export function createApp(deps: AppDeps): Application {
   addFitRunRoutes(routes, deps);
   addCampaignRoutes(routes, deps);
   addNotificationRoutes(routes, deps);
+  addComparisonRoutes(routes, deps);
+  addAuditLogRoutes(routes, deps);
   app.use('/api', apiNotFound);
 
   if (deps.clientDir && existsSync(path.join(deps.clientDir, 'index.html'))) {
