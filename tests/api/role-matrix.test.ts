@@ -69,6 +69,11 @@ const EXPECTED: Record<string, { allowed: Who[]; url: string; endsSession?: true
   'PUT /api/campaigns/:id/notification': { allowed: SIGNED_IN, url: '/api/campaigns/2147480000/notification' },
   'GET /api/notifications': { allowed: SIGNED_IN, url: '/api/notifications' },
   'PUT /api/pulsars/:id/notification': { allowed: SIGNED_IN, url: '/api/pulsars/2147480000/notification' },
+  'GET /api/pulsars/:id/fit-comparison': { allowed: SIGNED_IN, url: '/api/pulsars/2147480000/fit-comparison?runs=2147480000,2147480001' },
+  'POST /api/pulsars/:id/comparisons': { allowed: ['lead', 'admin'], url: '/api/pulsars/2147480000/comparisons' },
+  'GET /api/pulsars/:id/comparisons': { allowed: SIGNED_IN, url: '/api/pulsars/2147480000/comparisons' },
+  'GET /api/comparisons/:id': { allowed: SIGNED_IN, url: '/api/comparisons/2147480000' },
+  'GET /api/pulsars/:id/audit-log': { allowed: ANALYST_UP, url: '/api/pulsars/2147480000/audit-log' },
 };
 
 // The registry is filled while an app is built: a throwaway app lists it when the tests are collected.
