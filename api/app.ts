@@ -27,6 +27,7 @@ import { addOutboxRoutes } from './routes/outbox/router';
 import { addPulsarRoutes } from './routes/pulsars/router';
 import { addFitRunRoutes } from './routes/fit-runs/router';
 import { addRevisionRoutes } from './routes/revisions/router';
+import { addSearchRunRoutes } from './routes/search-runs/router';
 import { RouteTable } from './routes/route-table';
 import { addExclusionRoutes } from './routes/exclusions/router';
 import { addToaBatchRoutes } from './routes/toa-batches/router';
@@ -121,6 +122,7 @@ export function createApp(deps: AppDeps): Application {
   addExclusionRoutes(routes, deps);
   addRevisionRoutes(routes, deps);
   addFitRunRoutes(routes, deps);
+  addSearchRunRoutes(routes, deps);
   addCampaignRoutes(routes, deps);
   addNotificationRoutes(routes, deps);
   addComparisonRoutes(routes, deps);

@@ -1,0 +1,128 @@
+/**
+ * Row types of `search_runs` and `search_periodograms`, their presentations
+ * (SearchRun, SearchRunSummary, SearchPeriodograms of api/contracts/search-runs.ts)
+ * and the small updates the worker makes.
+ */
+import type { Knex } from 'knex';
+import type { UserRef } from '../contracts/fit-runs';
+import type {
+  SearchEngineSettings,
+  SearchOptions,
+  SearchPeriodogram,
+  SearchResult,
+  SearchRun,
+  SearchRunStatus,
+  SearchRunSummary,
+} from '../contracts/search-runs';
+import { decodeFloat64Column, encodeFloat64Column } from './residual-columns';
+import { userRefs } from './revisions';
+
+export interface SearchRunRow {
+  id: number;
+  pulsar_id: number;
+  revision_id: number;
+  inputs_hash: string;
+  options: string | SearchOptions; // JSON column: text from MariaDB
+  settings: string | SearchEngineSettings;
+  status: SearchRunStatus;
+  progress_percent: number;
+  stage: string;
+  job_id: string | null;
+  requested_by: number | null;
+  queued_at: Date;
+  started_at: Date | null;
+  finished_at: Date | null;
+  duration_ms: number | null;
+  error_message: string | null;
+  toa_count: number | null;
+  excluded_count: number | null;
+  result_json: string | null;
+  companions_found: number | null;
+  final_chi2: number | null;
+  saved_revision_id: number | null;
+}
+
+export interface SearchPeriodogramRow {
+  search_run_id: number;
+  round: number;
+  min_frequency_per_day: number;
+  step_per_day: number;
+  count: number;
+  power: Buffer;
+}
+
+const iso = (d: Date | null): string | null => (d ? d.toISOString() : null);
+const json = <T>(value: string | T): T => (typeof value === 'string' ? (JSON.parse(value) as T) : value);
+
+export function presentSearchRun(row: SearchRunRow, users: Map<number, UserRef>): SearchRun {
+  return {
+    id: row.id,
+    pulsarId: row.pulsar_id,
+    revisionId: row.revision_id,
+    status: row.status,
+    progress: { percent: row.progress_percent, stage: row.stage },
+    inputsHash: row.inputs_hash,
+    options: json<SearchOptions>(row.options),
+    settings: json<SearchEngineSettings>(row.settings),
+    toaCount: row.toa_count,
+    excludedCount: row.excluded_count,
+    requestedBy: row.requested_by === null ? null : (users.get(row.requested_by) ?? null),
+    queuedAt: row.queued_at.toISOString(),
+    startedAt: iso(row.started_at),
+    finishedAt: iso(row.finished_at),
+    durationMs: row.duration_ms,
+    errorMessage: row.error_message,
+    savedRevisionId: row.saved_revision_id,
+    result: row.result_json === null ? null : (JSON.parse(row.result_json) as SearchResult),
+  };
+}
+
+/** The list form: no candidate elements, no final-fit parameters, no resulting model. */
+export function summariseSearchRun(run: SearchRun): SearchRunSummary {
+  if (run.result === null) return { ...run, result: null };
+  const { candidates, resultingModel: _model, finalFit, ...rest } = run.result;
+  const { parameters: _parameters, ...fitFigures } = finalFit;
+  return {
+    ...run,
+    result: { ...rest, finalFit: fitFigures, candidates: candidates.map(({ elements: _elements, ...c }) => c) },
+  };
+}
+
+export async function presentSearchRuns(knex: Knex, rows: readonly SearchRunRow[]): Promise<SearchRun[]> {
+  const users = await userRefs(knex, rows.map((r) => r.requested_by));
+  return rows.map((r) => presentSearchRun(r, users));
+}
+
+export async function findSearchRun(knex: Knex | Knex.Transaction, id: number): Promise<SearchRunRow | undefined> {
+  return (await knex<SearchRunRow>('search_runs').where({ id }).first()) as SearchRunRow | undefined;
+}
+
+/** Sets progress on a run that is still running; returns the run's status afterwards (to notice a cancel). */
+export async function reportSearchRunProgress(knex: Knex, id: number, percent: number, stage: string): Promise<SearchRunStatus | undefined> {
+  await knex('search_runs').where({ id, status: 'running' }).update({ progress_percent: percent, stage });
+  const row = (await knex('search_runs').where({ id }).first('status')) as { status: SearchRunStatus } | undefined;
+  return row?.status;
+}
+
+/** One round's periodogram as its stored row (power deflated). */
+export function encodeSearchPeriodogram(searchRunId: number, p: SearchPeriodogram | { round: number; grid: SearchPeriodogram['grid']; power: Float64Array }): SearchPeriodogramRow {
+  const power = p.power instanceof Float64Array ? p.power : Float64Array.from(p.power);
+  if (power.length !== p.grid.count) throw new RangeError(`encodeSearchPeriodogram: ${power.length} powers for a grid of ${p.grid.count}`);
+  return {
+    search_run_id: searchRunId,
+    round: p.round,
+    min_frequency_per_day: p.grid.minFrequencyPerDay,
+    step_per_day: p.grid.stepPerDay,
+    count: p.grid.count,
+    power: encodeFloat64Column(power),
+  };
+}
+
+export function decodeSearchPeriodogram(row: SearchPeriodogramRow): SearchPeriodogram {
+  const count = Number(row.count);
+  return {
+    round: row.round,
+    grid: { minFrequencyPerDay: row.min_frequency_per_day, stepPerDay: row.step_per_day, count },
+    power: Array.from(decodeFloat64Column(row.power, count)),
+  };
+}
