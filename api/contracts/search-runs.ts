@@ -90,10 +90,10 @@ export interface SearchOptions {
   assumedPulsarMassSolar: number;
 }
 
-/** One fitted value: file notation, 1σ uncertainty in `unit`. */
+/** One value: file notation, 1σ uncertainty in `unit` (null: held fixed, not fitted). */
 export interface SearchValue {
   value: string;
-  uncertainty: number;
+  uncertainty: number | null;
   unit: string;
 }
 
