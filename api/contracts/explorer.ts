@@ -59,8 +59,14 @@ export interface ExplorerTable {
   backend: string[];
   frequencyMhz: (number | null)[]; // null = infinite frequency
   uncertaintyUs: number[]; // effective (noise settings of the fitted model applied)
-  residualUs: number[]; // fitted model; TOAs excluded at fit time are evaluated, not fitted
+  /** Fitted model; TOAs excluded at fit time are evaluated, not fitted. null only where `evaluated` is false. */
+  residualUs: (number | null)[];
   excluded: boolean[]; // excluded at fit time (left out of the fit)
+  /**
+   * false for an excluded TOA the engine cannot evaluate (outside the ephemeris, unknown site):
+   * its residual is null and its barycentric days, delays and partials are 0.
+   */
+  evaluated: boolean[];
   nearestPulse: boolean[]; // true: residual taken against the nearest pulse; false: against the file's pulse number
   /** The model epoch (TDB) the barycentric days count from, MJD text. */
   referenceMjd: string;
@@ -75,7 +81,7 @@ export interface ExplorerTable {
   partials: ExplorerPartial[];
   phaseOffsetTurns: number; // the fitted phase offset (applied in residualUs)
   spinFrequencyHz: string; // fitted spin frequency, decimal text
-  weightedRmsUs: number; // of the fitted (not excluded) TOAs
+  weightedRmsUs: number | null; // of the fitted (not excluded) TOAs, as the fit reported it
   fittedModel: Record<string, unknown>; // the model file JSON (docs/formats.md §2)
   settings: FitEngineSettings; // which ephemeris, clock and time scale produced these numbers
   engineSettings: Record<string, string>; // as the engine reported them

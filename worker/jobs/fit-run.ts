@@ -7,7 +7,8 @@
  *    'fitting: iteration k', 'storing results'. At each report the row's status
  *    is read back; a run cancelled meanwhile stops (UnrecoverableError
  *    'cancelled') without touching the status or storing anything.
- * 2. Exactly once: every output (the one fit_residuals row, result and
+ * 2. Exactly once: every output (the one fit_residuals row, the one
+ *    fit_explorer_columns row, result and
  *    statistics on fit_runs, status 'succeeded') is written in ONE transaction,
  *    delete-then-insert keyed by the run id, and only while the run is still
  *    'running'. A job re-run after a crash (stall detection) redoes the fit and
@@ -29,12 +30,15 @@ import { findFitRun, reportFitRunProgress, type FitRunRow } from '../../api/db/f
 import { loadToasForFit } from '../../api/db/load-toas-for-fit';
 import { loadObservatories } from '../../api/db/observatories';
 import { encodeResidualColumns } from '../../api/db/residual-columns';
+import { encodeExplorerColumns } from '../../api/db/explorer-columns';
+import { loadExcludedToas, loadToaBatchRows } from '../../api/db/load-explorer-toas';
 import { findRevision } from '../../api/db/revisions';
 import { fitInputsHash, loadFitSelection, loadStoredMjdTexts } from '../../api/services/fit-runs/fit-inputs';
 import { parseObservatory } from '../timing/earth/read-observatories';
 import type { FitEngineInput, FitEngineOutput } from './fit-run-engine';
 import { notifyFitRunFinished } from './fit-run-events';
 import { FitThreadError, runFitInThread } from './fit-run-thread';
+import { buildExplorerColumns } from './fit-run-explorer-columns';
 
 export interface FitRunDeps {
   knex: Knex;
@@ -103,12 +107,14 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
     const loaded = await loadToasForFit(trx as unknown as Knex, run.pulsar_id);
     const selection = await loadFitSelection(trx, run.pulsar_id);
     const mjdTexts = await loadStoredMjdTexts(trx, run.pulsar_id);
+    const excluded = await loadExcludedToas(trx as unknown as Knex, run.pulsar_id); // for the explorer, evaluated not fitted
+    const batchRows = await loadToaBatchRows(trx as unknown as Knex, run.pulsar_id);
     // Only the sites these TOAs use: an unrelated observatory row can never fail this fit.
-    const usedCodes = new Set(loaded.toas.map((toa) => toa.observatory));
+    const usedCodes = new Set([...loaded.toas, ...excluded.toas].map((toa) => toa.observatory));
     const observatories = (await loadObservatories(trx as unknown as Knex))
       .filter((o) => usedCodes.has(o.code))
       .map((o) => parseObservatory(o));
-    return { revision, loaded, selection, mjdTexts, observatories };
+    return { revision, loaded, selection, mjdTexts, observatories, excluded, batchRows };
   });
   // The stored hash describes what is fitted now (TOAs may have changed since the run was queued).
   const inputsHash = fitInputsHash(inputs.revision.model_json, inputs.selection);
@@ -121,6 +127,7 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
     toas: inputs.loaded.toas,
     observatories: inputs.observatories,
     maxIterations: MAX_ITERATIONS,
+    excludedToas: inputs.excluded.toas,
   };
   const thread = runFitInThread(engineInput, async (event) => {
     if (event.type === 'stage') await report(event.stage === 'barycentring' ? 5 : 30, event.stage === 'barycentring' ? 'barycentring' : 'fitting: iteration 1');
@@ -147,6 +154,13 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
     backend: toas.map((t) => t.backend),
     observatory: toas.map((t) => t.observatory),
   });
+  const explorer = encodeExplorerColumns(
+    buildExplorerColumns(
+      output.explorer,
+      { fitted: inputs.loaded, excluded: inputs.excluded, mjdTexts: inputs.mjdTexts, batchRows: inputs.batchRows },
+      output.phaseOffsetTurns,
+    ),
+  );
   const result: FitResult = {
     parameters: output.parameters,
     chi2: output.chi2,
@@ -167,6 +181,8 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
     if (current?.status !== 'running') throw new CancelledError();
     await trx('fit_residuals').where({ fit_run_id: fitRunId }).del();
     await trx('fit_residuals').insert({ fit_run_id: fitRunId, ...residuals });
+    await trx('fit_explorer_columns').where({ fit_run_id: fitRunId }).del();
+    await trx('fit_explorer_columns').insert({ fit_run_id: fitRunId, ...explorer });
     await trx('fit_runs')
       .where({ id: fitRunId })
       .update({

@@ -1,4 +1,4 @@
-/** Fit runs: queue (or reuse) per pulsar, list, read one, residuals (columnar or CSV), fitted model download, cancel. */
+/** Fit runs: queue (or reuse) per pulsar, list, read one, residuals (columnar or CSV), explorer columns, fitted model download, cancel. */
 import type { AppDeps } from '../../app-deps';
 import { currentUser } from '../../auth/current-user';
 import { CreateFitRunBody } from '../../contracts/fit-runs';
@@ -6,6 +6,7 @@ import { validate } from '../../middleware/validate';
 import { cancelFitRun } from '../../services/fit-runs/cancel-fit-run';
 import { createFitRun } from '../../services/fit-runs/create-fit-run';
 import { loadFitResiduals, residualCsv, residualTable } from '../../services/fit-runs/get-fit-residuals';
+import { getFitExplorer } from '../../services/fit-runs/get-fit-explorer';
 import { getFitRun } from '../../services/fit-runs/get-fit-run';
 import { getFittedModel } from '../../services/fit-runs/get-fitted-model';
 import { listFitRuns } from '../../services/fit-runs/list-fit-runs';
@@ -50,6 +51,11 @@ export function addFitRunRoutes(routes: RouteTable, deps: AppDeps): void {
       res.json({ data: residualTable(columns) });
     },
   );
+
+  // Residual explorer columns (api/contracts/explorer.ts): TOAs, barycentric days, delays, partials.
+  routes.add({ method: 'get', path: '/api/fit-runs/:id/explorer', access: 'pulsars:read' }, validate({ params: FitRunParams }), async (_req, res) => {
+    res.json({ data: await getFitExplorer(knex, (res.locals.params as FitRunParams).id) });
+  });
 
   routes.add({ method: 'get', path: '/api/fit-runs/:id/fitted-model', access: 'pulsars:read' }, validate({ params: FitRunParams }), async (_req, res) => {
     const { model, fileName } = await getFittedModel(knex, (res.locals.params as FitRunParams).id);
