@@ -8,10 +8,11 @@ import type { BarycentricDays } from './barycentric-days';
 import { barycentricDaysFromMjd } from './barycentric-days';
 import { addBlandfordTeukolskyDelayS } from './blandford-teukolsky-delay';
 import { addLowEccentricityDelayS } from './low-eccentricity-delay';
+import { addDamourDeruelleDelayS } from './damour-deruelle-delay';
 
 /**
  * Adds one companion's orbit delay (seconds) into `out`; disabled companions add nothing.
- * Throws TimingInputError for a kind whose delay is not implemented yet.
+ * Throws TimingInputError for a kind that is not known.
  */
 export function addCompanionDelayS(companion: Companion, days: BarycentricDays, out: Float64Array): void {
   if (!companion.enabled) return;
@@ -23,10 +24,8 @@ export function addCompanionDelayS(companion: Companion, days: BarycentricDays, 
       addLowEccentricityDelayS(companion, days, out);
       return;
     case 'damour-deruelle':
-      throw new TimingInputError(
-        `companions[${companion.name}]: kind "damour-deruelle" is not implemented yet`,
-        [{ path: `companions[${companion.name}].kind`, message: 'not implemented yet' }],
-      );
+      addDamourDeruelleDelayS(companion, days, out);
+      return;
     default: {
       const unknown: never = companion;
       throw new TimingInputError(`companion kind ${String((unknown as Companion).kind)} is not known`);
@@ -53,7 +52,7 @@ export function companionDelaysFromDaysS(companions: readonly Companion[], days:
  * @param model           the timing model (only `companions` and `epochMjd` are used)
  * @param barycentricTdb  barycentric arrival times at infinite frequency (TDB)
  * @returns               seconds per instant (emission = barycentric arrival − delay)
- * References: see blandford-teukolsky-delay.ts and low-eccentricity-delay.ts.
+ * References: see blandford-teukolsky-delay.ts, low-eccentricity-delay.ts and damour-deruelle-delay.ts.
  */
 export function companionDelaysS(model: Pick<TimingModel, 'companions' | 'epochMjd'>, barycentricTdb: readonly Mjd[]): Float64Array {
   return companionDelaysFromDaysS(model.companions, barycentricDaysFromMjd(barycentricTdb, model.epochMjd));
