@@ -44,7 +44,8 @@ export async function loadComparedRuns(knex: Knex, pulsarId: number, fitRunIds: 
   for (const id of fitRunIds) {
     const row = byId.get(id) as FitRunRow;
     if (row.status !== 'succeeded' || row.result_json === null) {
-      throw fieldError(field, `fit run ${id} is ${row.status}: only succeeded fit runs have results to compare`);
+      const state = row.status === 'failed' ? 'failed' : row.status === 'cancelled' ? 'was cancelled' : `is still ${row.status}`;
+      throw fieldError(field, `fit run ${id} ${state}: only succeeded fit runs have results to compare`);
     }
   }
 
