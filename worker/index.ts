@@ -5,13 +5,14 @@
 import { Worker, type Job } from 'bullmq';
 import IORedis from 'ioredis';
 import { loadConfig } from '../api/config';
-import { CAMPAIGN_JOB_TYPE, JOB_TYPES, QUEUE_NAME } from '../api/contracts/queues';
+import { CAMPAIGN_JOB_TYPE, JOB_TYPES, QUEUE_NAME, SEARCH_RUN_JOB_TYPE } from '../api/contracts/queues';
 import { createMailer } from '../api/mail/mailer';
 import { createQueue } from '../api/queue/create-queue';
 import { createFitRun } from '../api/services/fit-runs/create-fit-run';
 import { createWorkerKnex } from './db';
 import { processToaStatistics } from './jobs/toa-statistics';
 import { processFitRun } from './jobs/fit-run';
+import { processSearchRun } from './jobs/search-run';
 import { workerLockOptions } from './jobs/fit-run-worker-options';
 import { processCampaign } from './jobs/campaign';
 import { failCampaign } from './jobs/campaign-failure';
@@ -31,6 +32,7 @@ export function startWorker(config = loadConfig()) {
   const processors: Record<string, (job: Job, token?: string) => Promise<unknown>> = {
     [JOB_TYPES.toaStatistics]: (job) => processToaStatistics(job, { knex }),
     [JOB_TYPES.fitRun]: (job) => processFitRun(job, { knex }),
+    [SEARCH_RUN_JOB_TYPE]: (job) => processSearchRun(job, { knex }),
     [CAMPAIGN_JOB_TYPE]: (job, token) => processCampaign(job, token, { knex, queue, createFitRun, mail }),
   };
   const worker = new Worker(
