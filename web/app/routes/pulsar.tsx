@@ -26,6 +26,8 @@ import { ResidualPlotPanel } from '../../features/residual-plot/components/lazy-
 import { revisionsQueryOptions, useRevisions } from '../../features/revisions/api/get-revisions';
 import { RevisionDiff } from '../../features/revisions/components/revision-diff';
 import { RevisionTimeline } from '../../features/revisions/components/revision-timeline';
+import { CompanionSearchSection } from '../../features/search-runs/components/companion-search-section';
+import { SEARCH_PERMISSIONS } from '../../features/search-runs/lib/search-permissions';
 import { toaBatchesQueryOptions, useToaBatches } from '../../features/toa-batches/api/get-toa-batches';
 import { ToaBatchTable } from '../../features/toa-batches/components/toa-batch-table';
 import { hasPermission, requireSession } from '../session';
@@ -218,6 +220,7 @@ export default function PulsarRoute() {
             <FitRunsSection pulsarId={id} canRun={can(WORKFLOW_PERMISSIONS.runFits)} />
           </div>
         </div>
+        <CompanionSearchSection pulsarId={id} canRun={can(SEARCH_PERMISSIONS.runSearches)} />
         {can(PERMISSIONS.startJobs) ? (
           <Card>
             <CardTitle>TOA statistics</CardTitle>

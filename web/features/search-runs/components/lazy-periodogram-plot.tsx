@@ -1,0 +1,35 @@
+import { lazy, Suspense, useMemo } from 'react';
+import { LoadingPanel } from '../../../components/query-state';
+import type { SearchPeak } from '../api/get-search-run';
+import type { SearchPeriodogram } from '../api/get-search-periodograms';
+import { formatFap, formatPeriodDays } from '../lib/format-search';
+import { periodogramSeries } from '../lib/periodogram-series';
+
+// React.lazy keeps Plotly (several MB) out of the page chunks until a plot is shown.
+const PeriodogramPlot = lazy(() => import('./periodogram-plot'));
+
+/** One round's periodogram as a figure with a caption that says what is drawn and what is marked. */
+export function RoundPeriodogram({
+  periodogram,
+  peak,
+  falseAlarmThreshold,
+}: {
+  periodogram: SearchPeriodogram;
+  peak: SearchPeak | null;
+  falseAlarmThreshold: number;
+}) {
+  const series = useMemo(() => periodogramSeries(periodogram), [periodogram]);
+  return (
+    <figure aria-label={`Periodogram of round ${periodogram.round}`}>
+      <Suspense fallback={<LoadingPanel label="Loading the plot…" />}>
+        <PeriodogramPlot series={series} peak={peak} falseAlarmThreshold={falseAlarmThreshold} thresholdPower={null} />
+      </Suspense>
+      <figcaption className="mt-2 text-xs text-night-400">
+        Generalized Lomb–Scargle power of the residuals against trial period (logarithmic axis), {periodogram.grid.count.toLocaleString('en-GB')}{' '}
+        frequencies{series.thinned ? ', thinned for drawing to the extremes of each stretch' : ''}.
+        {peak ? ` The diamond marks the chosen peak at ${formatPeriodDays(peak.periodDays)} (FAP ${formatFap(peak.falseAlarmProbability)}).` : ''} The power
+        level of the false-alarm threshold is not sent by the server, so no threshold line is drawn; compare the peak’s FAP with the threshold instead.
+      </figcaption>
+    </figure>
+  );
+}
