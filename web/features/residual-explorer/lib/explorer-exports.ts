@@ -15,7 +15,8 @@ function csvField(value: string): string {
 
 /**
  * The residuals as shown (fitted, or previewed for an edited model) as CSV text, one row per TOA
- * in table order; `frequency_mhz` is `inf` for infinite frequency (docs/formats.md §1).
+ * in table order; `frequency_mhz` is `inf` for infinite frequency (docs/formats.md §1); `residual_us` is
+ * empty for a TOA the engine could not evaluate.
  *
  * @param table       the explorer table
  * @param residualUs  the residual per TOA that is on screen, µs
@@ -36,7 +37,7 @@ export function residualsCsv(table: ExplorerTable, residualUs: ArrayLike<number>
         csvField(table.backend[i]),
         frequency === null ? 'inf' : String(frequency),
         String(table.uncertaintyUs[i]),
-        String(residualUs[i]),
+        Number.isFinite(residualUs[i]) ? String(residualUs[i]) : '',
         isExcluded(i) ? 'true' : 'false',
       ].join(','),
     );
