@@ -1,6 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
-import { useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Alert } from '../../components/alert';
 import { Button } from '../../components/button';
 import { Card, CardTitle } from '../../components/card';
@@ -109,6 +109,9 @@ function Finished({ run }: { run: FitRun }) {
         <a href={residualsCsvUrl(id)} download className={downloadClasses}>
           Download residuals CSV
         </a>
+        <Link to={paths.residualExplorer.href(String(run.pulsarId), run.id)} className={downloadClasses}>
+          Open in explorer
+        </Link>
       </div>
       <Section title="Fit statistics">
         <FitStatistics run={run} result={result} />
