@@ -150,6 +150,8 @@ function FitRunsSection({ pulsarId, canRun }: { pulsarId: string; canRun: boolea
             <TextLink to={paths.fitRun.href(String(latestSucceeded.id))}>Run #{latestSucceeded.id}</TextLink>
             {latestSucceeded.finishedAt ? `, finished ${formatDateTimeUtc(latestSucceeded.finishedAt)}` : ''}: reduced χ²{' '}
             {formatReducedChi2(latestSucceeded.result?.reducedChi2)}, weighted RMS {formatRmsUs(latestSucceeded.result?.weightedRmsUs)}
+            {' · '}
+            <TextLink to={paths.residualExplorer.href(pulsarId, latestSucceeded.id)}>Open in explorer</TextLink>
           </p>
           <ResidualPlotPanel fitRunId={String(latestSucceeded.id)} />
         </Card>
