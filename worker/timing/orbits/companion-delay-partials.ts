@@ -2,12 +2,14 @@
  * Analytic partial derivatives of one companion's orbit delay with respect to
  * its parameters (and to time), in one pass over the TOAs.
  */
-import type { Companion, KeplerianCompanion, LowEccentricityCompanion } from '../model/timing-model';
+import type { Companion, DamourDeruelleCompanion, KeplerianCompanion, LowEccentricityCompanion } from '../model/timing-model';
 import { TimingInputError } from '../engine-error';
 import { DAYS_PER_JULIAN_YEAR } from '../delays/physical-constants';
 import type { BarycentricDays, OrbitCount } from './barycentric-days';
 import { epochOffsetDays, orbitCountAt } from './barycentric-days';
 import { solveKepler } from './kepler-equation';
+import type { DamourDeruelleState } from './damour-deruelle-delay';
+import { damourDeruelleConstants, damourDeruelleStateAt, emptyDamourDeruelleState } from './damour-deruelle-delay';
 
 const TWO_PI = 2 * Math.PI;
 const RAD_PER_DEG = Math.PI / 180;
@@ -24,25 +26,34 @@ export const TIME_RATE_KEY = 'time';
  * @param keys       file keys (period_days, projected_semimajor_axis_lt_s, eccentricity,
  *                   periastron_longitude_deg, periastron_epoch_mjd, period_derivative,
  *                   periastron_advance_deg_per_yr, einstein_delay_s; for low-eccentricity
- *                   ascending_node_epoch_mjd, e_sin_omega, e_cos_omega) or TIME_RATE_KEY
+ *                   ascending_node_epoch_mjd, e_sin_omega, e_cos_omega; for damour-deruelle also
+ *                   shapiro_range_s, shapiro_shape) or TIME_RATE_KEY
  * @returns          one Float64Array per key: seconds per unit of the parameter (days for periods
  *                   and epochs, degrees, deg/yr, lt-s, s; dimensionless for e, η, κ, Ṗb)
  *
  * Notes: 1. Chain rule through the delay formulas of blandford-teukolsky-delay.ts
  *           (Δ = D·C, D = α(cos E − e) + (β+γ) sin E, C = 1 − n(β cos E − α sin E)/(1 − e cos E))
  *           and low-eccentricity-delay.ts (Δ = R·(1 − n·dR/dΦ)), with ∂E/∂M = 1/(1 − e cos E) and
- *           ∂E/∂e = sin E/(1 − e cos E) from Kepler's equation.
+ *           ∂E/∂e = sin E/(1 − e cos E) from Kepler's equation; and damour-deruelle-delay.ts
+ *           (Δ = D·P − 2r ln L, P = 1 − D' + D'² + ½DD''), through u, e, ω, x, γ, n, r and s, with
+ *           ∂A_e/∂u = √(1−e²)/(1 − e cos u) and ∂A_e/∂e = sin u/(√(1−e²)(1 − e cos u)) for the true anomaly.
  *        2. The delay depends on t − T₀ only, so ∂Δ/∂t = −∂Δ/∂T₀ (per second).
  * Accuracy: exact derivatives of the implemented delays (agree with numeric differences to
  *           ≤ 1e-6 relative: tests/engine/pipeline/timing-residuals.test.ts).
- * References: Blandford & Teukolsky 1976, ApJ 205, 580; Lange et al. 2001, MNRAS 326, 274.
+ *           Damour–Deruelle: tests/engine/orbits/damour-deruelle-partials.test.ts.
+ * References: Blandford & Teukolsky 1976, ApJ 205, 580; Lange et al. 2001, MNRAS 326, 274;
+ *             Damour & Deruelle 1986, Ann. Inst. H. Poincaré (Phys. Théor.) 44, 263.
  */
 export function companionDelayPartials(companion: Companion, days: BarycentricDays, keys: readonly string[]): Float64Array[] {
   const out = keys.map(() => new Float64Array(days.hi.length));
   if (!companion.enabled) return out;
   if (companion.kind === 'keplerian') keplerianPartials(companion, days, keys, out);
   else if (companion.kind === 'low-eccentricity') lowEccentricityPartials(companion, days, keys, out);
-  else throw new TimingInputError(`companions[${companion.name}]: kind "${companion.kind}" is not implemented yet`);
+  else if (companion.kind === 'damour-deruelle') damourDeruellePartials(companion, days, keys, out);
+  else {
+    const unknown: never = companion;
+    throw new TimingInputError(`companion kind ${String((unknown as Companion).kind)} is not known`);
+  }
   return out;
 }
 
@@ -168,5 +179,92 @@ function lowEccentricityPartials(c: LowEccentricityCompanion, days: BarycentricD
     if (k.kappa >= 0) out[k.kappa][i] = combine(st, 0, 0.5 * x * s2, x * c2, 0);
     if (k.pb >= 0) out[k.pb][i] = combine(st, TWO_PI * (-t / (pb * pb) + (periodRate * t * t) / pb ** 3), 0, 0, -n / periodNowDays);
     if (k.periodRate >= 0) out[k.periodRate][i] = combine(st, -Math.PI * (t / pb) ** 2, 0, 0, (-n * t) / periodNowDays);
+  }
+}
+
+/** Constants of one Damour–Deruelle companion used by its combine step. */
+interface DamourDeruelleCombineConstants { x: number; e: number; rootE: number; r: number; s: number }
+
+/**
+ * ∂Δ of the Damour–Deruelle delay from the changes of its primitive quantities: eccentric anomaly u,
+ * explicit e, ω (rad), x, γ, n (rad/s), r and s (Note 1). Δ = D·P − 2r ln L with
+ * D = α(cos u − e) + B sin u, α = x sin ω, B = x√(1−e²) cos ω + γ, D' = nD_u/g, D'' = n²Q,
+ * Q = D_uu/g² − (e sin u)D_u/g³, g = 1 − e cos u, P = 1 − D' + D'² + ½DD'', L = g − sH.
+ */
+function damourDeruelleCombine(
+  st: DamourDeruelleState, c: DamourDeruelleCombineConstants,
+  du: number, de: number, dOmega: number, dx: number, dGamma: number, dN: number, dr: number, ds: number,
+): number {
+  const { x, e, rootE } = c;
+  const { sinU, cosU, sinW, cosW, g, meanMotion: n, D, Du, Duu } = st;
+  const dAlpha = sinW * dx + x * cosW * dOmega;
+  const dB = rootE * cosW * dx - x * rootE * sinW * dOmega + (rootE > 0 ? (-x * e * cosW * de) / rootE : 0) + dGamma;
+  const dD = Du * du - st.alpha * de + (cosU - e) * dAlpha + sinU * dB;
+  const dDu = Duu * du - sinU * dAlpha + cosU * dB;
+  const dDuu = -Du * du - cosU * dAlpha - sinU * dB;
+  const dg = e * sinU * du - cosU * de;
+  const w = e * sinU;
+  const dw = e * cosU * du + sinU * de;
+  const dDt = (dN * Du + n * dDu - st.Dt * dg) / g;
+  const g2 = g * g;
+  const g3 = g2 * g;
+  const q = Duu / g2 - (w * Du) / g3;
+  const dq = dDuu / g2 - (2 * Duu * dg) / g3 - (dw * Du + w * dDu) / g3 + (3 * w * Du * dg) / (g3 * g);
+  const dDtt = 2 * n * dN * q + n * n * dq;
+  const dP = -dDt + 2 * st.Dt * dDt + 0.5 * (dD * st.Dtt + D * dDtt);
+  const dRoemerEinstein = dD * st.inverseFactor + D * dP;
+  const dH = (-sinW * sinU + rootE * cosW * cosU) * du + (cosW * (cosU - e) - rootE * sinW * sinU) * dOmega
+    + (-sinW - (rootE > 0 ? (e * cosW * sinU) / rootE : 0)) * de;
+  const dL = dg - c.s * dH - st.shapiroShapeTerm * ds;
+  const dShapiro = (dr === 0 ? 0 : -2 * Math.log(st.shapiroArgument) * dr) - (c.r === 0 ? 0 : (2 * c.r * dL) / st.shapiroArgument);
+  return dRoemerEinstein + dShapiro;
+}
+
+function damourDeruellePartials(c: DamourDeruelleCompanion, days: BarycentricDays, keys: readonly string[], out: Float64Array[]): void {
+  const constants = damourDeruelleConstants(c, days);
+  const { eccentricity: e, periodDays: pb, periodDerivative: periodRate } = c;
+  const rootE = constants.rootOneMinusE2;
+  const kAdvance = constants.advancePerTrueAnomaly;
+  const cc: DamourDeruelleCombineConstants = { x: c.projectedSemimajorAxisLtS, e, rootE, r: c.shapiroRangeS, s: c.shapiroShape };
+  const k = {
+    x: keyIndex(keys, 'projected_semimajor_axis_lt_s'), e: keyIndex(keys, 'eccentricity'), om: keyIndex(keys, 'periastron_longitude_deg'),
+    t0: keyIndex(keys, 'periastron_epoch_mjd'), pb: keyIndex(keys, 'period_days'), periodRate: keyIndex(keys, 'period_derivative'),
+    advance: keyIndex(keys, 'periastron_advance_deg_per_yr'), gamma: keyIndex(keys, 'einstein_delay_s'),
+    range: keyIndex(keys, 'shapiro_range_s'), shape: keyIndex(keys, 'shapiro_shape'), time: keyIndex(keys, TIME_RATE_KEY),
+  };
+  const count: OrbitCount = { wholeOrbits: 0, fractionalOrbits: 0, elapsedDays: 0 };
+  const st = emptyDamourDeruelleState();
+  const combine = damourDeruelleCombine;
+  for (let i = 0; i < days.hi.length; i += 1) {
+    damourDeruelleStateAt(c, constants, days, i, count, st);
+    const t = st.elapsedDays;
+    const g = st.g;
+    const dTrueAnomalyDu = rootE / g; // dA_e/du (Note 1)
+    const dTrueAnomalyDe = rootE > 0 ? st.sinU / (rootE * g) : 0; // ∂A_e/∂e at fixed u (Note 1)
+    const periodNowDays = pb + periodRate * t;
+    const n = st.meanMotion;
+    // a change dM of the mean anomaly moves u by dM/g, and ω by k·(dA_e/du)·du
+    const viaMeanAnomaly = (dM: number, dN: number, dk: number): number => {
+      const du = dM / g;
+      return combine(st, cc, du, 0, st.trueAnomaly * dk + kAdvance * dTrueAnomalyDu * du, 0, 0, dN, 0, 0);
+    };
+    const dT0 = viaMeanAnomaly(TWO_PI * (-1 / pb + (periodRate * t) / (pb * pb)), (n * periodRate) / periodNowDays, 0);
+    if (k.t0 >= 0) out[k.t0][i] = dT0;
+    if (k.time >= 0) out[k.time][i] = -dT0 / SECONDS_PER_DAY; // Note 2
+    if (k.x >= 0) out[k.x][i] = combine(st, cc, 0, 0, 0, 1, 0, 0, 0, 0);
+    if (k.e >= 0) {
+      const du = st.sinU / g; // ∂u/∂e from Kepler's equation
+      out[k.e][i] = combine(st, cc, du, 1, kAdvance * (dTrueAnomalyDu * du + dTrueAnomalyDe), 0, 0, 0, 0, 0);
+    }
+    if (k.om >= 0) out[k.om][i] = combine(st, cc, 0, 0, RAD_PER_DEG, 0, 0, 0, 0, 0);
+    if (k.pb >= 0) out[k.pb][i] = viaMeanAnomaly(TWO_PI * (-t / (pb * pb) + (periodRate * t * t) / pb ** 3), -n / periodNowDays, kAdvance / pb);
+    if (k.periodRate >= 0) out[k.periodRate][i] = viaMeanAnomaly(-Math.PI * (t / pb) ** 2, (-n * t) / periodNowDays, 0);
+    if (k.advance >= 0) {
+      const dk = (RAD_PER_DEG / DAYS_PER_JULIAN_YEAR) * (pb / TWO_PI); // ∂k/∂ω̇ per deg/yr
+      out[k.advance][i] = combine(st, cc, 0, 0, st.trueAnomaly * dk, 0, 0, 0, 0, 0);
+    }
+    if (k.gamma >= 0) out[k.gamma][i] = combine(st, cc, 0, 0, 0, 0, 1, 0, 0, 0);
+    if (k.range >= 0) out[k.range][i] = combine(st, cc, 0, 0, 0, 0, 0, 0, 1, 0);
+    if (k.shape >= 0) out[k.shape][i] = combine(st, cc, 0, 0, 0, 0, 0, 0, 0, 1);
   }
 }
