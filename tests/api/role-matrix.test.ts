@@ -60,6 +60,7 @@ const EXPECTED: Record<string, { allowed: Who[]; url: string; endsSession?: true
   'GET /api/pulsars/:id/fit-runs': { allowed: SIGNED_IN, url: '/api/pulsars/2147480000/fit-runs' },
   'GET /api/fit-runs/:id': { allowed: SIGNED_IN, url: '/api/fit-runs/2147480000' },
   'GET /api/fit-runs/:id/residuals': { allowed: SIGNED_IN, url: '/api/fit-runs/2147480000/residuals' },
+  'GET /api/fit-runs/:id/explorer': { allowed: SIGNED_IN, url: '/api/fit-runs/2147480000/explorer' },
   'GET /api/fit-runs/:id/fitted-model': { allowed: SIGNED_IN, url: '/api/fit-runs/2147480000/fitted-model' },
   'POST /api/fit-runs/:id/cancel': { allowed: ANALYST_UP, url: '/api/fit-runs/2147480000/cancel' },
   'POST /api/pulsars/:id/search-runs': { allowed: ANALYST_UP, url: '/api/pulsars/2147480000/search-runs' },
