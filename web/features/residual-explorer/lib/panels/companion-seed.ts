@@ -1,4 +1,4 @@
-import { fitSinusoidAtFrequency } from './sinusoid-fit';
+import { fitSinusoidAtFrequency, refinePeakFrequency } from './sinusoid-fit';
 import { addDaysToMjdText } from './mjd-text';
 
 const MICROSECONDS_PER_SECOND = 1e6;
@@ -30,6 +30,7 @@ export interface CompanionSeed {
  * @param residualUs    residuals, µs (observed − model, so a missing companion shows as +delay, Note 1)
  * @param uncertaintyUs residual 1σ, µs
  * @param freqPerDay    frequency of the chosen peak, cycles per day
+ * @param gridStepPerDay the periodogram's grid step; the frequency is refined within ± one step (Note 2)
  * @param referenceMjd  MJD text of tDays' origin
  * @param name          the new companion's name
  * @returns             the companion (period, projected semi-major axis, e = 0, ω = 0, epoch) and the amplitude
@@ -37,9 +38,12 @@ export interface CompanionSeed {
  * Notes: 1. For e = 0 and ω = 0 the orbital (Roemer) delay is x·sin(2π(t − T₀)/P_b)
  *    (Blandford & Teukolsky 1976, ApJ 205, 580, their orbit delay with e = 0); the engine subtracts it
  *    from the arrival time, so residuals without the companion carry +delay. Hence x = A (µs → lt-s)
- *    and T₀ = the upward zero crossing of the fitted sinusoid, put within one period after referenceMjd.
+ *    and T₀ = the upward zero crossing of the fitted sinusoid nearest the middle of the data, where
+ *    the phase is best known (a small period error would shift a T₀ far from the data).
  *    The fitted sinusoid amplitude is the seed; a fit refines it (the timing model's other terms
  *    may have absorbed part of the signal).
+ * 2. The grid samples a peak every 1/(5·span); the best-fitting frequency within one step
+ *    (golden-section search on the sinusoid fit's χ²) is the seeded period.
  * References: Blandford & Teukolsky 1976, ApJ 205, 580.
  */
 export function seedCompanionFromPeak(
@@ -47,11 +51,13 @@ export function seedCompanionFromPeak(
   residualUs: Float64Array,
   uncertaintyUs: Float64Array,
   freqPerDay: number,
+  gridStepPerDay: number,
   referenceMjd: string,
   name: string,
 ): CompanionSeed {
-  const sinusoid = fitSinusoidAtFrequency(tDays, residualUs, uncertaintyUs, freqPerDay);
-  const periodDays = 1 / freqPerDay;
+  const refinedPerDay = refinePeakFrequency(tDays, residualUs, uncertaintyUs, freqPerDay, gridStepPerDay);
+  const sinusoid = fitSinusoidAtFrequency(tDays, residualUs, uncertaintyUs, refinedPerDay);
+  const periodDays = 1 / refinedPerDay;
   const xLtS = sinusoid.amplitude / MICROSECONDS_PER_SECOND; // delay = x·sin(2π(t − T₀)/P_b) for e = 0: Blandford & Teukolsky 1976
   return {
     companion: {

@@ -4,10 +4,12 @@ export interface FixedFrequencySinusoid {
   readonly amplitude: number;
   /** formal 1σ of the amplitude, same unit as y */
   readonly amplitudeUncertainty: number;
-  /** a time (days, same origin as tDays) where the sinusoid crosses its offset upwards; in [0, 1/f) */
+  /** a time (days, same origin as tDays) where the sinusoid crosses its offset upwards, within half a period of the data's weighted mean time (Note 4) */
   readonly zeroPhaseDays: number;
   /** constant term, same unit as y */
   readonly offset: number;
+  /** χ² explained by the constant and the sinusoid together, cᵀ·(Σ w·g·y); larger is a better fit (Note 3) */
+  readonly explainedChi2: number;
 }
 
 /**
@@ -25,6 +27,10 @@ export interface FixedFrequencySinusoid {
  *    and the 3×3 normal equations well conditioned; the crossing is shifted back afterwards.
  * 2. a·cos ωt + b·sin ωt = A·sin(ω(t − t₀)) with A = √(a² + b²), ωt₀ = −atan2(a, b).
  *    σ_A from the covariance: σ_A² = (a²·Caa + 2ab·Cab + b²·Cbb)/A² (first-order propagation).
+ * 3. χ²(fit) = Σw·y² − cᵀ·r for the least-squares coefficients c and r = Σ w·g·y, so comparing
+ *    cᵀ·r between frequencies compares the fits' χ² (the quantity the periodogram power normalises).
+ * 4. zeroPhaseDays is put within half a period of the weighted mean time (where the phase is best
+ *    determined), then reduced to [0, 1/f) only if `nearOrigin` is set.
  * Throws RangeError for fewer than 3 samples, mismatched lengths, σ ≤ 0 or f ≤ 0, or when the
  * normal equations are singular (all samples at one phase).
  * References: Zechmeister & Kürster 2009, A&A 496, 577, §2 (the floating-mean sinusoid model);
@@ -35,6 +41,7 @@ export function fitSinusoidAtFrequency(
   y: Float64Array,
   sigma: Float64Array,
   freqPerDay: number,
+  nearOrigin = false,
 ): FixedFrequencySinusoid {
   const n = tDays.length;
   if (n < 3) throw new RangeError(`tDays: need at least 3 samples, got ${n}`);
@@ -72,8 +79,10 @@ export function fitSinusoidAtFrequency(
       : Math.sqrt(0.5 * (cov[4] + cov[8]));
   const periodDays = 1 / freqPerDay;
   const crossingCentred = -Math.atan2(a, b) / omega; // a·cos ωt + b·sin ωt = A·sin(ω(t − t₀)), ωt₀ = −atan2(a, b)
-  const zeroPhaseDays = positiveModulo(crossingCentred + centreDays, periodDays);
-  return { amplitude, amplitudeUncertainty, zeroPhaseDays, offset };
+  const nearCentre = positiveModulo(crossingCentred + 0.5 * periodDays, periodDays) - 0.5 * periodDays + centreDays;
+  const zeroPhaseDays = nearOrigin ? positiveModulo(nearCentre, periodDays) : nearCentre;
+  const explainedChi2 = coef[0] * r[0] + coef[1] * r[1] + coef[2] * r[2]; // χ²_fit = Σwy² − cᵀr: Note 3
+  return { amplitude, amplitudeUncertainty, zeroPhaseDays, offset, explainedChi2 };
 }
 
 /** x mod m in [0, m). */
@@ -95,4 +104,50 @@ function invertSymmetric3(m: Float64Array): Float64Array {
   const c12 = b * c - a * e;
   const c22 = a * d - b * b;
   return Float64Array.from([c00, c01, c02, c01, c11, c12, c02, c12, c22].map((v) => v / det));
+}
+
+const GOLDEN_STEPS = 40;
+const INVERSE_GOLDEN = (Math.sqrt(5) - 1) / 2;
+
+/**
+ * The frequency within ±halfWidthPerDay of `freqPerDay` where the fixed-frequency sinusoid fits
+ * best (largest explained χ²), by golden-section search; refines a periodogram grid peak to well
+ * below the grid step.
+ *
+ * @param halfWidthPerDay  half-width of the bracket, cycles per day (e.g. one grid step); > 0
+ * @returns                the refined frequency, cycles per day
+ * Notes: assumes one maximum inside the bracket (true within a grid step of a sampled peak).
+ * References: Kiefer 1953, Proc. AMS 4, 502 (golden-section search).
+ */
+export function refinePeakFrequency(
+  tDays: Float64Array,
+  y: Float64Array,
+  sigma: Float64Array,
+  freqPerDay: number,
+  halfWidthPerDay: number,
+): number {
+  if (!(halfWidthPerDay > 0)) throw new RangeError(`halfWidthPerDay: must be > 0, got ${halfWidthPerDay}`);
+  const score = (f: number) => fitSinusoidAtFrequency(tDays, y, sigma, f).explainedChi2;
+  let lo = Math.max(freqPerDay - halfWidthPerDay, freqPerDay * 1e-3);
+  let hi = freqPerDay + halfWidthPerDay;
+  let x1 = hi - INVERSE_GOLDEN * (hi - lo);
+  let x2 = lo + INVERSE_GOLDEN * (hi - lo);
+  let s1 = score(x1);
+  let s2 = score(x2);
+  for (let step = 0; step < GOLDEN_STEPS; step++) {
+    if (s1 > s2) {
+      hi = x2;
+      x2 = x1;
+      s2 = s1;
+      x1 = hi - INVERSE_GOLDEN * (hi - lo);
+      s1 = score(x1);
+    } else {
+      lo = x1;
+      x1 = x2;
+      s1 = s2;
+      x2 = lo + INVERSE_GOLDEN * (hi - lo);
+      s2 = score(x2);
+    }
+  }
+  return 0.5 * (lo + hi);
 }
