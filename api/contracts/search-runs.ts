@@ -110,10 +110,10 @@ export interface SearchPeak {
 
 /** Physics derived from a candidate's elements (mass function, minimum mass, separation). */
 export interface SearchDerivedMasses {
-  massFunctionSolar: number;
+  massFunctionSolar: number | null; // null (like every figure below) when the orbit fit failed
   assumedPulsarMassSolar: number;
-  minimumCompanionMass: { solarMasses: number; jupiterMasses: number; earthMasses: number };
-  separationAu: number; // Kepler's third law with pulsar mass + minimum companion mass
+  minimumCompanionMass: { solarMasses: number | null; jupiterMasses: number | null; earthMasses: number | null };
+  separationAu: number | null; // Kepler's third law with pulsar mass + minimum companion mass
 }
 
 /** The F-test deciding whether eccentricity and periastron longitude are fitted. */
@@ -142,8 +142,8 @@ export interface SearchCandidate {
   seedPeriodDays: number; // the seeding peak's period
   elements: Record<string, SearchValue>; // fitted elements keyed by the companion's file field names (period_days, …)
   chi2Before: number;
-  chi2After: number;
-  chi2Change: number; // chi2After − chi2Before (negative: better)
+  chi2After: number | null; // null when the orbit fit failed
+  chi2Change: number | null; // chi2After − chi2Before (negative: better)
   eccentricityTest: SearchEccentricityTest;
   converged: boolean;
   derived: SearchDerivedMasses;

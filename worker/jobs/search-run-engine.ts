@@ -46,7 +46,7 @@ const CORE_ELEMENTS = new Set(['period_days', 'projected_semimajor_axis_lt_s', '
 
 /** A companion's file fields (writeModelFile's notation: MJD text for epochs, numbers otherwise). */
 function companionFileFields(model: TimingModel, companion: Companion): Record<string, unknown> {
-  const file = writeModelFile({ ...model, companions: [companion] });
+  const file = writeModelFile({ ...model, companions: [companion], solveFor: [] });
   return (file.companions as Record<string, unknown>[])[0];
 }
 
@@ -63,6 +63,9 @@ export function candidateElements(model: TimingModel, candidate: EngineCandidate
   return elements;
 }
 
+/** Not-finite figures (a failed orbit fit) are stored as null, never as a number JSON cannot hold. */
+const finiteOrNull = (x: number): number | null => (Number.isFinite(x) ? x : null);
+
 function presentCandidate(model: TimingModel, c: EngineCandidate): SearchCandidate {
   return {
     round: c.round,
@@ -74,19 +77,19 @@ function presentCandidate(model: TimingModel, c: EngineCandidate): SearchCandida
     seedPeriodDays: c.seedPeriodDays,
     elements: candidateElements(model, c),
     chi2Before: c.chi2Before,
-    chi2After: c.chi2After,
-    chi2Change: c.chi2After - c.chi2Before,
+    chi2After: finiteOrNull(c.chi2After),
+    chi2Change: finiteOrNull(c.chi2After - c.chi2Before),
     eccentricityTest: { ...c.eccentricityTest },
     converged: c.converged,
     derived: {
-      massFunctionSolar: c.derived.massFunctionSolar,
+      massFunctionSolar: finiteOrNull(c.derived.massFunctionSolar),
       assumedPulsarMassSolar: c.derived.pulsarMassSolar,
       minimumCompanionMass: {
-        solarMasses: c.derived.minimumCompanionMass.solarMasses,
-        jupiterMasses: c.derived.minimumCompanionMass.jupiterMasses,
-        earthMasses: c.derived.minimumCompanionMass.earthMasses,
+        solarMasses: finiteOrNull(c.derived.minimumCompanionMass.solarMasses),
+        jupiterMasses: finiteOrNull(c.derived.minimumCompanionMass.jupiterMasses),
+        earthMasses: finiteOrNull(c.derived.minimumCompanionMass.earthMasses),
       },
-      separationAu: c.derived.separationAu,
+      separationAu: finiteOrNull(c.derived.separationAu),
     },
   };
 }
