@@ -54,6 +54,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.residualExplorer.path, ...page(() => import('./routes/residual-explorer')) },
             { path: paths.pulsarUpload.path, ...page(() => import('./routes/upload')) },
             { path: paths.pulsarModel.path, ...page(() => import('./routes/model-editor')) },
+            { path: paths.pulsarAuditLog.path, ...page(() => import('./routes/audit-log')) },
             { path: paths.campaigns.path, ...page(() => import('./routes/campaigns')) },
             { path: paths.campaign.path, ...page(() => import('./routes/campaign')) },
             { path: paths.observatories.path, ...page(() => import('./routes/observatories')) },

@@ -32,6 +32,7 @@ export const paths = {
     href: (id: string, fitRunId?: number | string) =>
       `/pulsars/${encodeURIComponent(id)}/explorer${fitRunId === undefined ? '' : `?fit=${encodeURIComponent(String(fitRunId))}`}`,
   },
+  pulsarAuditLog: { path: '/pulsars/:id/audit-log', href: (id: string | number) => `/pulsars/${encodeURIComponent(String(id))}/audit-log` },
   observatories: { path: '/observatories', href: () => '/observatories' },
   users: { path: '/users', href: () => '/users' },
   outbox: { path: '/outbox', href: () => '/outbox' },

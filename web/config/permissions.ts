@@ -10,6 +10,7 @@ export const PERMISSIONS = {
   createPulsars: 'pulsars:create',
   startJobs: 'jobs:start',
   readOutbox: 'outbox:read',
+  readAuditLog: 'audit-log:read',
 } as const satisfies Record<string, ApiPermission>;
 export type Permission = (typeof PERMISSIONS)[keyof typeof PERMISSIONS];
 

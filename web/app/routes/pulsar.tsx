@@ -198,6 +198,11 @@ export default function PulsarRoute() {
               Edit model
             </Link>
           ) : null}
+          {can(PERMISSIONS.readAuditLog) ? (
+            <Link to={paths.pulsarAuditLog.href(id)} className={actionLinkClasses}>
+              Audit log
+            </Link>
+          ) : null}
           <NotifyToggle pulsarId={id} />
         </div>
       }
