@@ -3,7 +3,9 @@
  * information criteria and the F-test for nested models. Distribution
  * functions come from jstat (a general-purpose statistics library).
  */
-import { jStat } from 'jstat';
+import jstat from 'jstat';
+
+const { jStat } = jstat; // a UMD module: Node's ESM loader gives it only as the default export
 
 /** One fitted model, as the comparison needs it. */
 export interface FitSummary {
