@@ -6,11 +6,14 @@
  *   npm run --silent cli -- simulate --model M.json --start-mjd A --end-mjd B --count N
  *                                    --observatory CODE --uncertainty-us S
  *                                    [--frequency-mhz F] [--seed K] [--pulse-numbers] [--jupiter-shapiro]
- *   npm run --silent cli -- search   (not available yet)
+ *   npm run --silent cli -- search   --toas F.csv --model M.json [--min-period-days A] [--max-period-days B]
+ *                                    [--max-companions K] [--false-alarm P] [--pulsar-mass-solar M]
+ *                                    [--max-iterations K] [--jupiter-shapiro]
  *
  * Results go to stdout (JSON; CSV for `simulate`). Problems go to stderr as one
  * line naming the option, file, row or parameter, with exit code 1; a fit that
- * does not converge prints its result and exits with code 2 and the last χ².
+ * does not converge prints its result and exits with code 2 and the last χ² (for `search`: the
+ * final fit).
  */
 import { readFileSync } from 'node:fs';
 import { resolve as resolvePath } from 'node:path';
@@ -29,6 +32,9 @@ import { computeArrivalGeometry } from './timing/pipeline/compute-arrival-geomet
 import { timingDelayReport } from './timing/pipeline/timing-delay-report';
 import { simulateToas } from './timing/simulate/simulate-toas';
 import { parseMjd } from './timing/time/mjd-string';
+import { checkFitRequest } from './timing/pipeline/fit-prepared-arrivals';
+import { searchCompanions } from './timing/search/companion-search';
+import { searchReportJson } from './timing/search/search-report-json';
 
 /** A problem the user can fix; printed as one line, exit code 1 (or `exitCode`). */
 class CliError extends Error {
@@ -168,11 +174,48 @@ function runSimulate(args: string[]): Output {
   return { stdout: writeToaCsv(result.toas, { fractionDigits: 20, comments }), exitCode: 0 };
 }
 
+function runSearch(args: string[]): Output {
+  const values = parseCommandArgs('search', args, {
+    ...FILE_OPTIONS,
+    'min-period-days': { type: 'string' },
+    'max-period-days': { type: 'string' },
+    'max-companions': { type: 'string' },
+    'false-alarm': { type: 'string' },
+    'pulsar-mass-solar': { type: 'string' },
+    'max-iterations': { type: 'string' },
+  });
+  const model = readModel(requireOption('search', values, 'model'));
+  const observatories = loadObservatories();
+  const toas = readToas(requireOption('search', values, 'toas'), observatories);
+  const optional = (name: string, rule: (x: number) => boolean, ruleText: string): number | undefined =>
+    values[name] === undefined ? undefined : parseNumberOption('search', name, values[name] as string, rule, ruleText);
+  const minPeriodDays = optional('min-period-days', (x) => x > 0, 'a number > 0');
+  const maxPeriodDays = optional('max-period-days', (x) => x > 0, 'a number > 0');
+  if (minPeriodDays !== undefined && maxPeriodDays !== undefined && !(maxPeriodDays > minPeriodDays)) {
+    throw new CliError(`search: --max-period-days (${maxPeriodDays}) must be greater than --min-period-days (${minPeriodDays})`);
+  }
+  const maxCompanions = optional('max-companions', (x) => Number.isInteger(x) && x >= 0 && x <= 25, 'a whole number from 0 to 25');
+  const falseAlarmThreshold = optional('false-alarm', (x) => x > 0 && x < 1, 'a probability between 0 and 1 (exclusive)');
+  const pulsarMassSolar = optional('pulsar-mass-solar', (x) => x > 0, 'a number > 0');
+  const maxIterations = optional('max-iterations', (x) => Number.isInteger(x) && x >= 1, 'a whole number ≥ 1');
+  checkFitRequest(model, toas);
+  const geometry = computeArrivalGeometry(toas, observatories);
+  const report = searchCompanions(model, toas, geometry, {
+    minPeriodDays, maxPeriodDays, maxCompanions, falseAlarmThreshold, pulsarMassSolar,
+    fitOptions: { maxIterations, includeJupiterShapiro: values['jupiter-shapiro'] === true },
+  });
+  const stdout = `${JSON.stringify(searchReportJson(report), null, 2)}\n`;
+  if (!report.finalFit.converged) {
+    return { stdout, exitCode: 2, stderr: `search: the final fit did not converge after ${report.finalFit.iterations} iterations; last χ² = ${report.finalFit.chi2}` };
+  }
+  return { stdout, exitCode: 0 };
+}
+
 const COMMANDS: Record<string, (args: string[]) => Output> = {
   fit: runFit,
   delays: runDelays,
   simulate: runSimulate,
-  search: () => { throw new CliError('search: not available yet'); },
+  search: runSearch,
 };
 
 /** Runs one command line (without the program name); returns what to print and the exit code. */

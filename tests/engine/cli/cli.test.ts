@@ -110,7 +110,7 @@ describe.concurrent('command line', { timeout: 240_000 }, () => {
     [['simulate', '--model', `${FIXTURES}/demo-model.json`, '--start-mjd', '58000', '--end-mjd', '58100', '--count', '5', '--observatory', 'harrow-ridge', '--uncertainty-us', '1', '--frequency-mhz=-3'], /--frequency-mhz must be a number > 0/],
     [['simulate', '--model', `${FIXTURES}/demo-model.json`, '--start-mjd', '58000', '--end-mjd', '58100', '--count', '5', '--observatory', 'harrow-ridge', '--uncertainty-us', '0'], /--uncertainty-us must be a number > 0/],
     [['simulate', '--model', `${FIXTURES}/demo-model.json`, '--start-mjd', '58000', '--end-mjd', '58100', '--count', '5', '--observatory', 'atlantis', '--uncertainty-us', '1'], /--observatory "atlantis" is not a registered observatory/],
-    [['search', '--toas', `${FIXTURES}/demo-toas.csv`, '--model', `${FIXTURES}/demo-model.json`], /search: not available yet/],
+    [['search', '--toas', `${FIXTURES}/demo-toas.csv`, '--model', `${FIXTURES}/demo-model.json`, '--false-alarm', '2'], /search: --false-alarm must be a probability between 0 and 1/],
     [['launch'], /unknown command "launch"/],
   ])('rejects %j with a one-line reason', async (args, pattern) => {
     expectOneLineError(await cli(args as string[]), pattern as RegExp);
