@@ -32,6 +32,12 @@ export const paths = {
     href: (id: string, fitRunId?: number | string) =>
       `/pulsars/${encodeURIComponent(id)}/explorer${fitRunId === undefined ? '' : `?fit=${encodeURIComponent(String(fitRunId))}`}`,
   },
+  fitComparison: {
+    path: '/pulsars/:id/compare',
+    href: (id: string | number, fitRunIds: readonly number[]) =>
+      `/pulsars/${encodeURIComponent(String(id))}/compare?runs=${fitRunIds.map((r) => encodeURIComponent(String(r))).join(',')}`,
+  },
+  savedComparison: { path: '/comparisons/:id', href: (id: string | number) => `/comparisons/${encodeURIComponent(String(id))}` },
   pulsarAuditLog: { path: '/pulsars/:id/audit-log', href: (id: string | number) => `/pulsars/${encodeURIComponent(String(id))}/audit-log` },
   observatories: { path: '/observatories', href: () => '/observatories' },
   users: { path: '/users', href: () => '/users' },

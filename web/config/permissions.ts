@@ -11,6 +11,8 @@ export const PERMISSIONS = {
   startJobs: 'jobs:start',
   readOutbox: 'outbox:read',
   readAuditLog: 'audit-log:read',
+  compareFits: 'fits:compare',
+  releaseModels: 'models:release',
 } as const satisfies Record<string, ApiPermission>;
 export type Permission = (typeof PERMISSIONS)[keyof typeof PERMISSIONS];
 
