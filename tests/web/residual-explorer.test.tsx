@@ -16,19 +16,20 @@ vi.mock('react-plotly.js/factory', () => ({
   default: () =>
     function FakePlot(props: {
       data: { name: string; x: ArrayLike<number>; customdata?: ArrayLike<number>; marker?: { symbol: string; color: string } }[];
-      layout: { xaxis: { title: { text: string } }; yaxis: { title: { text: string } } };
+      layout: { xaxis?: { title?: { text?: string } }; yaxis?: { title?: { text?: string } } };
       onSelected?: (event: { points: { customdata: number }[] }) => void;
       onInitialized?: (figure: unknown, div: HTMLElement) => void;
     }) {
       return (
         <div
-          data-testid="plotly"
+          // The periodogram panel draws with Plotly too; only the residual plot is "plotly".
+          data-testid={props.layout.yaxis?.title?.text?.startsWith('Residual') ? 'plotly' : 'plotly-other'}
           data-traces={props.data.map((t) => `${t.name}:${t.x.length}:${t.marker?.symbol ?? 'line'}`).join(',')}
           ref={(div) => {
             if (div) props.onInitialized?.({}, div);
           }}
         >
-          {props.layout.xaxis.title.text} / {props.layout.yaxis.title.text}
+          {props.layout.xaxis?.title?.text} / {props.layout.yaxis?.title?.text}
           <button type="button" onClick={() => props.onSelected?.({ points: [{ customdata: 0 }, { customdata: 1 }] })}>
             fake box over rows 0 and 1
           </button>

@@ -18,6 +18,8 @@ import { CompanionSwitches, companionsOfModel } from './companion-switches';
 import { DelayComponentsTable, type DelayComponentsRow } from './delay-components-table';
 import type { ImageFormat, PlotHandle } from './explorer-plot';
 import { ExportActions } from './export-actions';
+import { PeriodogramPanel } from './periodogram-panel';
+import type { SeededCompanion } from '../lib/panels/companion-seed';
 import { PlotControls, type PlotChoices } from './plot-controls';
 import { RefitPanel } from './refit-panel';
 import { SelectionActions } from './selection-actions';
@@ -41,6 +43,17 @@ export interface ResidualExplorerProps {
 interface AppliedChange {
   label: string;
   undo: ExclusionChange;
+}
+
+/**
+ * `model` with a companion seeded from a periodogram peak appended, its period, projected
+ * semi-major axis and epoch added to `solve_for` (a fit refines them; the panel's switches can change that).
+ */
+export function addSeededCompanion(model: Record<string, unknown>, companion: SeededCompanion): Record<string, unknown> {
+  const companions = Array.isArray(model.companions) ? model.companions : [];
+  const solveFor = Array.isArray(model.solve_for) ? (model.solve_for as string[]) : [];
+  const added = ['period_days', 'projected_semimajor_axis_lt_s', 'periastron_epoch_mjd'].map((key) => `companions[${companion.name}].${key}`);
+  return { ...model, companions: [...companions, companion], solve_for: [...solveFor, ...added.filter((p) => !solveFor.includes(p))] };
 }
 
 /** The names of companions enabled in `fitted` but off in `edited`. */
@@ -145,6 +158,21 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
     revision.current += 1;
     return list;
   }, [groups, x, shown, table, choices.y, choices.showCurve, choices.x, spinFrequencyHz, hover, selected, chosenCompanion, days]);
+
+  // The periodogram looks at the TOAs in use that have a residual, as shown (after toggles and edits).
+  const periodogramInput = useMemo(() => {
+    const used: number[] = [];
+    for (let i = 0; i < table.count; i++) if (!isExcluded(i) && Number.isFinite(shown.residualUs[i])) used.push(i);
+    return {
+      tDays: Float64Array.from(used, (i) => days.hi[i] + days.lo[i]),
+      residualUs: Float64Array.from(used, (i) => shown.residualUs[i]),
+      uncertaintyUs: Float64Array.from(used, (i) => table.uncertaintyUs[i]),
+    };
+  }, [table, isExcluded, shown, days]);
+  const seedCompanion = useCallback((companion: SeededCompanion) => {
+    setEditedModel((model) => addSeededCompanion(model, companion));
+    setChoices((c) => ({ ...c, companion: companion.name }));
+  }, []);
 
   const selectedIndices = useMemo(() => [...selected].sort((a, b) => a - b), [selected]);
   const selectedExcludedCount = selectedIndices.filter(isExcluded).length;
@@ -256,6 +284,19 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
               onClear={() => setSelected(new Set())}
               onSelectRange={selectRange}
               xTitle={X_AXIS_TITLES[choices.x]}
+            />
+          </Card>
+          <Card aria-labelledby="periodogram-title">
+            <CardTitle>
+              <span id="periodogram-title">Periodogram of the shown residuals</span>
+            </CardTitle>
+            <PeriodogramPanel
+              tDays={periodogramInput.tDays}
+              residualUs={periodogramInput.residualUs}
+              uncertaintyUs={periodogramInput.uncertaintyUs}
+              referenceMjd={table.referenceMjd}
+              existingCompanionNames={companionNames}
+              onSeedCompanion={seedCompanion}
             />
           </Card>
           <Card aria-labelledby="delay-chain-title">
