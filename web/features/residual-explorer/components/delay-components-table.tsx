@@ -55,7 +55,7 @@ export function DelayComponentsTable({ rows }: { rows: readonly DelayComponentsR
     <div className="flex flex-col gap-2">
       <p className="text-sm text-night-300" aria-live="polite">
         {rows.length > MAX_DELAY_ROWS
-          ? `Showing the first ${MAX_DELAY_ROWS} of ${formatCount(rows.length)} selected TOAs (by arrival time).`
+          ? `Showing the first ${MAX_DELAY_ROWS} of ${formatCount(rows.length)} selected TOAs.`
           : `${formatCount(rows.length)} selected ${rows.length === 1 ? 'TOA' : 'TOAs'}.`}
       </p>
       <Table aria-label="Delay components of the selected TOAs" aria-describedby="delay-components-caption">

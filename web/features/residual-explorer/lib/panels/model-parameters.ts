@@ -113,7 +113,7 @@ export function parameterGroups(model: ModelFileJson): ParameterGroup[] {
 
 type Step = { key: string } | { index: number } | { member: string; by: 'name' | 'backend' };
 
-const SEGMENT = /^([a-z_]+)(?:\[([^\]]+)\])?$/;
+const SEGMENT = /^([a-z][a-z0-9_]*)(?:\[([^\]]+)\])?$/;
 
 /** `companions[b].period_days` → steps; null for paths outside the shapes above. */
 function stepsOf(path: string): Step[] | null {
