@@ -84,16 +84,16 @@ describe('campaigns page', () => {
     const list = within(form).getByRole('list', { name: 'Pulsars to refit' });
     await user.click(within(list).getByLabelText('J0303+0303'));
     await user.click(within(list).getByLabelText('J0101-0101'));
-    await user.click(within(form).getByLabelText(/Latest released revision/));
+    await user.click(within(form).getByLabelText(/Latest revision of each pulsar/));
     await user.click(within(form).getByLabelText('E-mail me when it finishes'));
     await user.click(within(form).getByRole('button', { name: 'Start campaign' }));
 
     await waitFor(() => expect(posted).toBeDefined());
-    expect(posted).toEqual({ name: 'after the clock update', pulsarIds: [1, 3], revisionChoice: 'released', notifyMe: false });
+    expect(posted).toEqual({ name: 'after the clock update', pulsarIds: [1, 3], revisionChoice: 'latest', notifyMe: false });
     await waitFor(() => expect(router.state.location.pathname).toBe('/campaigns/4'));
   });
 
-  it('sends pulsarIds "all" and notifyMe by default', async () => {
+  it('sends pulsarIds "all", the released revisions and notifyMe by default', async () => {
     let posted: unknown;
     mockApi({
       'GET /api/auth/me': ok(LEAD_ME),
@@ -110,7 +110,7 @@ describe('campaigns page', () => {
     expect(within(table).getByText('2/2 pulsars')).toBeTruthy();
     await user.type(screen.getByLabelText('Campaign name'), 'all of them');
     await user.click(screen.getByRole('button', { name: 'Start campaign' }));
-    await waitFor(() => expect(posted).toEqual({ name: 'all of them', pulsarIds: 'all', revisionChoice: 'latest', notifyMe: true }));
+    await waitFor(() => expect(posted).toEqual({ name: 'all of them', pulsarIds: 'all', revisionChoice: 'released', notifyMe: true }));
   });
 
   it('shows the list without the create form to a role that may only read', async () => {

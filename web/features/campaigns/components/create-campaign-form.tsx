@@ -38,7 +38,7 @@ export function CreateCampaignForm({
   const [name, setName] = useState('');
   const [scope, setScope] = useState<'all' | 'chosen'>('all');
   const [chosen, setChosen] = useState<ReadonlySet<number>>(new Set());
-  const [revisionChoice, setRevisionChoice] = useState<CreateCampaignBody['revisionChoice']>('latest');
+  const [revisionChoice, setRevisionChoice] = useState<CreateCampaignBody['revisionChoice']>('released');
   const [notifyMe, setNotifyMe] = useState(true);
   const [problems, setProblems] = useState<{ name?: string; pulsars?: string; other?: string }>({});
 
@@ -125,11 +125,11 @@ export function CreateCampaignForm({
 
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 text-sm font-medium text-night-100">Model revision</legend>
-        <Radio name="revision" value="latest" checked={revisionChoice === 'latest'} onChange={() => setRevisionChoice('latest')}>
-          Latest revision of each pulsar
-        </Radio>
         <Radio name="revision" value="released" checked={revisionChoice === 'released'} onChange={() => setRevisionChoice('released')}>
           Latest released revision (pulsars without one are skipped)
+        </Radio>
+        <Radio name="revision" value="latest" checked={revisionChoice === 'latest'} onChange={() => setRevisionChoice('latest')}>
+          Latest revision of each pulsar, released or not
         </Radio>
       </fieldset>
 
