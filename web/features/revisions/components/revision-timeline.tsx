@@ -1,19 +1,24 @@
 import { cn } from '../../../lib/cn';
 import { formatDateTimeUtc } from '../../../lib/format';
 import type { Revision } from '../api/get-revisions';
+import { ReleaseControls, ReleaseDetails } from './release-controls';
+import { ReleasedBadge } from './released-badge';
 
 /**
  * The model's history, newest at the top, on a vertical line. Each entry has a "Compare" checkbox;
- * at most two are ticked at a time (ticking a third drops the oldest choice).
+ * at most two are ticked at a time (ticking a third drops the oldest choice). Released entries carry
+ * the released badge and the note; `canRelease` (models:release) adds release / withdraw controls.
  */
 export function RevisionTimeline({
   revisions,
   selectedIds,
   onSelectedIdsChange,
+  canRelease = false,
 }: {
   revisions: Revision[];
   selectedIds: number[];
   onSelectedIdsChange: (ids: number[]) => void;
+  canRelease?: boolean;
 }) {
   const toggle = (id: number) => {
     if (selectedIds.includes(id)) onSelectedIdsChange(selectedIds.filter((s) => s !== id));
@@ -37,20 +42,18 @@ export function RevisionTimeline({
                 <span className="font-mono text-xs text-night-400">#{r.id}</span>
                 <p className="font-medium text-night-100">{r.message}</p>
                 {i === 0 ? <span className="rounded-full border border-ember-500/60 px-2 text-xs text-ember-300">latest</span> : null}
-                {r.releasedAt ? (
-                  <span className="rounded-full border border-calm-500/70 px-2 text-xs text-calm-400" title={r.releaseNote ?? undefined}>
-                    released
-                  </span>
-                ) : null}
+                {r.releasedAt ? <ReleasedBadge title={r.releaseNote ?? undefined} /> : null}
               </div>
               <p className="mt-0.5 text-xs text-night-300">
                 {r.author?.displayName ?? 'unknown author'} · {formatDateTimeUtc(r.createdAt)}
                 {r.parentId !== null ? ` · from #${r.parentId}` : ''}
               </p>
+              <ReleaseDetails revision={r} />
               <label className="mt-1 inline-flex items-center gap-2 text-xs text-night-300">
                 <input type="checkbox" checked={selected} onChange={() => toggle(r.id)} className="accent-ember-500" />
                 Compare #{r.id}
               </label>
+              {canRelease ? <ReleaseControls revision={r} /> : null}
             </div>
           </li>
         );
