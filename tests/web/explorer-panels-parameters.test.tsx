@@ -41,6 +41,7 @@ const EXPLORER: ExplorerTable = {
   uncertaintyUs: [],
   residualUs: [],
   excluded: [],
+  evaluated: [],
   nearestPulse: [],
   referenceMjd: '58500',
   barycentricDaysHi: [],
