@@ -23,6 +23,11 @@ export function CandidateVerdictBadge({ candidate }: { candidate: Pick<SearchCan
   );
 }
 
+/** χ² before → after adding the candidate; the orbit fit may have failed (after = null). */
+function chi2Text(c: Pick<SearchCandidate, 'chi2Before' | 'chi2After'>): string {
+  return `χ² ${c.chi2Before.toFixed(1)} → ${c.chi2After === null ? 'no value (the orbit fit failed)' : c.chi2After.toFixed(1)}`;
+}
+
 /** The eccentricity F-test in words. */
 function eccentricityText(test: SearchCandidate['eccentricityTest']): string {
   if (!test.attempted) return 'Circular orbit kept (the eccentric fit could not be done).';
@@ -96,7 +101,7 @@ export function CandidatesTable({ candidates }: { candidates: SearchCandidate[] 
                 <span className="font-mono tabular-nums">{formatFap(c.falseAlarmProbability)}</span>
               </Td>
               <Td>
-                <span className="whitespace-nowrap font-mono tabular-nums" title={`χ² ${c.chi2Before.toFixed(1)} → ${c.chi2After.toFixed(1)}`}>
+                <span className="whitespace-nowrap font-mono tabular-nums" title={chi2Text(c)}>
                   {formatChi2Change(c.chi2Change)}
                 </span>
               </Td>
@@ -110,7 +115,7 @@ export function CandidatesTable({ candidates }: { candidates: SearchCandidate[] 
             <span className="font-mono text-night-200">{c.name}</span>:{' '}
             {eccentricityText(c.eccentricityTest)}{' '}
             Seeded at {formatPeriodDays(c.seedPeriodDays)}.
-            χ² {c.chi2Before.toFixed(1)} → {c.chi2After.toFixed(1)}.
+            {chi2Text(c)}.
             {extraKeys(c).map((key) => (
               <span key={key} className="ml-2">
                 {key}: <ElementCell candidate={c} elementKey={key} />

@@ -9,7 +9,7 @@ import { useQueueFitRun } from '../../fit-runs/api/queue-fit-run';
 import type { FitRun } from '../../fit-runs/api/get-fit-run';
 import { SaveRevisionDialog } from '../../model-editor/components/save-revision-dialog';
 import type { SearchRun } from '../api/get-search-run';
-import { savedRevisionIdOf, useSaveSearchRevision } from '../api/save-search-revision';
+import { useSaveSearchRevision } from '../api/save-search-revision';
 
 function QueueFitOfRevision({ pulsarId, revisionId }: { pulsarId: string; revisionId: number }) {
   const queue = useQueueFitRun(pulsarId);
@@ -70,12 +70,14 @@ export function SaveSearchRevisionPanel({ run, canSave, canRunFits }: { run: Sea
     return <p className="text-sm text-night-300">Saving the resulting model as a revision needs the analyst role or higher.</p>;
   }
   const found = run.result?.companionsFound ?? 0;
+  if (found === 0) {
+    return <p className="text-sm text-night-300">No companion was accepted, so the resulting model adds nothing to revision #{run.revisionId}; there is nothing to save.</p>;
+  }
   return (
     <div className="flex flex-col gap-3">
       <p className="text-sm text-night-300">
-        {found > 0
-          ? `The resulting model is revision #${run.revisionId} with the ${found === 1 ? 'accepted companion' : `${found} accepted companions`} added and everything refitted; rejected candidates are not in it.`
-          : `No companion was accepted, so the resulting model is revision #${run.revisionId} refitted.`}
+        The resulting model is revision #{run.revisionId} with the {found === 1 ? 'accepted companion' : `${found} accepted companions`} added and
+        everything refitted; rejected candidates are not in it.
       </p>
       <div>
         <Button onClick={() => setOpen(true)}>Save resulting model as a revision</Button>
@@ -98,8 +100,8 @@ export function SaveSearchRevisionPanel({ run, canSave, canRunFits }: { run: Sea
             save.mutate(
               { message },
               {
-                onSuccess: (answer) => {
-                  setSavedHere(savedRevisionIdOf(answer));
+                onSuccess: (revision) => {
+                  setSavedHere(revision.id);
                   setOpen(false);
                 },
               },

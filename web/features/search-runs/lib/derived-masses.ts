@@ -17,7 +17,8 @@ export interface DerivedForMass {
 /**
  * The candidate's derived masses for `pulsarMassSolar`: the server's figures when the mass is the
  * one the run assumed, else recomputed in the browser with the engine's own routines from the
- * server's mass function and the fitted period. Null when there is no usable period.
+ * server's mass function and the fitted period. Null when the orbit fit failed (the server
+ * derived nothing) or there is no usable period.
  *
  * @param candidate        a search candidate (its `derived` and `elements.period_days`)
  * @param pulsarMassSolar  assumed pulsar mass, solar masses (> 0)
@@ -27,18 +28,22 @@ export interface DerivedForMass {
  */
 export function derivedForMass(candidate: Pick<SearchCandidate, 'derived' | 'elements'>, pulsarMassSolar: number): DerivedForMass | null {
   const derived = candidate.derived;
+  const f = derived.massFunctionSolar;
+  if (f === null) return null; // the orbit fit failed: nothing was derived
   if (pulsarMassSolar === derived.assumedPulsarMassSolar) {
+    const m = derived.minimumCompanionMass;
+    if (m.solarMasses === null || m.jupiterMasses === null || m.earthMasses === null || derived.separationAu === null) return null;
     return {
-      massFunctionSolar: derived.massFunctionSolar,
+      massFunctionSolar: f,
       pulsarMassSolar,
-      minimumMass: derived.minimumCompanionMass,
+      minimumMass: { solarMasses: m.solarMasses, jupiterMasses: m.jupiterMasses, earthMasses: m.earthMasses },
       separationAu: derived.separationAu,
       recomputed: false,
     };
   }
   const periodDays = Number(candidate.elements.period_days?.value);
-  if (!(periodDays > 0) || !(pulsarMassSolar > 0) || !(derived.massFunctionSolar >= 0)) return null;
-  const minimumMass = minimumCompanionMass(derived.massFunctionSolar, pulsarMassSolar); // mass-function equation at i = 90°
+  if (!(periodDays > 0) || !(pulsarMassSolar > 0) || !(f >= 0)) return null;
+  const minimumMass = minimumCompanionMass(f, pulsarMassSolar); // mass-function equation at i = 90°
   const separationAu = orbitalSeparationAu(pulsarMassSolar + minimumMass.solarMasses, periodDays * SECONDS_PER_DAY); // Kepler's third law
-  return { massFunctionSolar: derived.massFunctionSolar, pulsarMassSolar, minimumMass, separationAu, recomputed: true };
+  return { massFunctionSolar: f, pulsarMassSolar, minimumMass, separationAu, recomputed: true };
 }
