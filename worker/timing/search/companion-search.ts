@@ -74,7 +74,8 @@ export function searchCompanions(model: TimingModel, toas: readonly Toa[], geome
   const totalRounds = maxCompanions + 1;
   const progress = (round: number, stage: string, withinRound: number): void => {
     if (options.isCancelled?.() === true) throw new CompanionSearchCancelled();
-    options.onProgress?.({ round, stage, fraction: Math.min(1, (round - 1 + withinRound) / totalRounds) });
+    const fraction = stage === 'done' ? 1 : Math.min(1, (round - 1 + withinRound) / totalRounds);
+    options.onProgress?.({ round, stage, fraction });
   };
 
   progress(1, 'fit', 0);
