@@ -55,6 +55,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.pulsarUpload.path, ...page(() => import('./routes/upload')) },
             { path: paths.pulsarModel.path, ...page(() => import('./routes/model-editor')) },
             { path: paths.pulsarAuditLog.path, ...page(() => import('./routes/audit-log')) },
+            { path: paths.fitComparison.path, ...page(() => import('./routes/fit-comparison')) },
+            { path: paths.savedComparison.path, ...page(() => import('./routes/comparison')) },
             { path: paths.campaigns.path, ...page(() => import('./routes/campaigns')) },
             { path: paths.campaign.path, ...page(() => import('./routes/campaign')) },
             { path: paths.observatories.path, ...page(() => import('./routes/observatories')) },
