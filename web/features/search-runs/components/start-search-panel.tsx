@@ -39,9 +39,22 @@ const FIELD_HINTS: Record<NumberField, string> = {
 
 type Problems = Partial<Record<FieldName | 'form', string>>;
 
-/** "minPeriodDays: must be > 0" → "must be > 0" (the field's label already names it). */
+/** The contract's field names as they read inside a sentence. */
+const FIELD_WORDS: Record<NumberField, string> = {
+  minPeriodDays: 'the shortest period',
+  maxPeriodDays: 'the longest period',
+  maxCompanions: 'the most companions',
+  falseAlarmThreshold: 'the false-alarm threshold',
+  assumedPulsarMassSolar: 'the assumed pulsar mass',
+};
+
+/**
+ * "minPeriodDays: must be > 0" → "must be > 0" (the field's label already names it); another
+ * field named inside the message is written in words ("must be greater than the shortest period").
+ */
 function withoutFieldPrefix(message: string, field: string): string {
-  return message.startsWith(`${field}: `) ? message.slice(field.length + 2) : message;
+  const text = message.startsWith(`${field}: `) ? message.slice(field.length + 2) : message;
+  return NUMBER_FIELDS.reduce((t, name) => t.replace(new RegExp(`\\b${name}\\b`, 'g'), FIELD_WORDS[name]), text);
 }
 
 function problemsFrom(issues: readonly { path: readonly PropertyKey[]; message: string }[]): Problems {
