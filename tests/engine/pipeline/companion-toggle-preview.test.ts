@@ -112,6 +112,10 @@ const EXACT_EDITS: Edit[] = [
   ['spin frequency edited', (m) => { m.spin.frequencyHz = ddAddNumber(m.spin.frequencyHz, 3e-10); }],
   ['spin derivative edited', (m) => { m.spin.frequencyDerivatives[0] *= 1.001; }],
   ['an offset edited and one added', (m) => { m.offsets = [{ backend: 'narrow', seconds: 9e-6 }, { backend: 'wide', seconds: -4e-6 }]; }],
+  ['a glitch added, and the planet switched off with it', (m) => {
+    m.glitches.push({ epochMjd: parseMjd('58750.5'), phaseStepTurns: 0.01, frequencyStepHz: 2e-9, frequencyDerivativeStepHzPerS: 0, decayingFrequencyStepHz: 1e-9, decayTimeDays: 40 });
+    m.companions[1].enabled = false;
+  }],
 ];
 
 describe.each([false, true])('companion toggles and exact edits (pulse numbers in the file: %s)', (withPulseNumbers) => {

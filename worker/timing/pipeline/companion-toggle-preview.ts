@@ -18,7 +18,8 @@ import { dispersionTaylorCoefficient } from '../delays/dispersion-measure-at';
 import type { TimingModel } from '../model/timing-model';
 import { parameterHandle } from '../model/parameter-paths';
 import type { BarycentricDays } from '../orbits/barycentric-days';
-import { companionDelaysFromDaysS } from '../orbits/companion-delays';
+import { addCompanionDelayS } from '../orbits/companion-delays';
+import type { Companion } from '../model/timing-model';
 import { ddAddNumber, ddSub, ddTimesNumber, ddToNumber } from '../time/double-double-typed';
 import type { DoubleDouble } from '../time/epoch';
 import { prepareSpin, spinPhase, type PreparedSpin, type SpinPhaseValue } from './spin-phase';
@@ -53,6 +54,13 @@ export interface PreparedPreview {
   turnsFitted: Float64Array;
   phaseFittedHi: Float64Array;
   phaseFittedLo: Float64Array;
+  /** Under the fitted model at the fitted emission time: offset + companion delays (s), F (Hz) and dF/dt (Hz/s). */
+  laterDelaysFittedS: Float64Array;
+  frequencyFittedHz: Float64Array;
+  frequencyRateFittedHzPerS: Float64Array;
+  /** Each fitted companion's delay (s) by the companion's full description, so unchanged companions are not re-evaluated. */
+  companionDelayCache: Map<string, Float64Array>;
+  spinKey: string;
   partials: Map<string, ArrayLike<number>>;
 }
 
@@ -85,6 +93,22 @@ function emissionSeconds(days: BarycentricDays, i: number, laterDelaysS: number)
   return ddAddNumber(ddTimesNumber([days.lo[i], days.hi[i]], SECONDS_PER_DAY), -laterDelaysS);
 }
 
+/** A companion's full description (a cache key: any edited value gives another key). */
+const companionKey = (c: Companion): string => JSON.stringify({ ...c, enabled: true });
+const spinKeyOf = (m: TimingModel): string => JSON.stringify([m.spin, m.glitches]);
+
+/** Sum of the enabled companions' delays (s), reusing cached delays of unchanged companions. */
+function companionDelaysS(companions: readonly Companion[], days: BarycentricDays, cache: ReadonlyMap<string, Float64Array>): Float64Array {
+  const out = new Float64Array(days.hi.length);
+  for (const c of companions) {
+    if (!c.enabled) continue;
+    const cached = cache.get(companionKey(c));
+    if (cached === undefined) addCompanionDelayS(c, days, out);
+    else for (let i = 0; i < out.length; i += 1) out[i] += cached[i];
+  }
+  return out;
+}
+
 /** Offsets (s) per TOA from a model's backend offsets. */
 function offsetsPerToa(model: TimingModel, backends: readonly string[]): Float64Array {
   const byBackend = backendOffsetsS(model.offsets);
@@ -115,8 +139,18 @@ export function preparePreview(columns: PreviewColumns, fitted: TimingModel): Pr
     weights[i] = usable[i] === 1 && !columns.excluded[i] && sigma > 0 ? 1 / (sigma * sigma) : 0;
     nearestPulse[i] = columns.nearestPulse[i] ? 1 : 0;
   }
-  const companions = companionDelaysFromDaysS(fitted.companions, days);
+  const companionDelayCache = new Map<string, Float64Array>();
+  for (const c of fitted.companions) {
+    const one = new Float64Array(n);
+    addCompanionDelayS({ ...c, enabled: true }, days, one);
+    companionDelayCache.set(companionKey(c), one);
+  }
+  const companions = companionDelaysS(fitted.companions, days, companionDelayCache);
   const offsets = offsetsPerToa(fitted, columns.backend);
+  const laterDelaysFittedS = Float64Array.from(offsets, (o, i) => o + companions[i]);
+  const frequencyFittedHz = new Float64Array(n);
+  const frequencyRateFittedHzPerS = new Float64Array(n);
+  const derivatives = fitted.spin.frequencyDerivatives;
   const spin = prepareSpin(fitted);
   const value: SpinPhaseValue = { turnsHi: 0, turnsLo: 0, frequencyHz: 0 };
   const turnsFitted = new Float64Array(n);
@@ -124,13 +158,25 @@ export function preparePreview(columns: PreviewColumns, fitted: TimingModel): Pr
   const phaseFittedLo = new Float64Array(n);
   for (let i = 0; i < n; i += 1) {
     if (usable[i] === 0) continue;
-    spinPhase(spin, emissionSeconds(days, i, offsets[i] + companions[i]), value);
+    const emission = emissionSeconds(days, i, laterDelaysFittedS[i]);
+    spinPhase(spin, emission, value);
     phaseFittedHi[i] = value.turnsHi;
     phaseFittedLo[i] = value.turnsLo;
+    frequencyFittedHz[i] = value.frequencyHz;
+    // dF/dt = Σ_k F^(k+1) t^k / k! (derivative of the spin-phase.ts series; used only when no glitches)
+    const t = emission[1] + emission[0];
+    let rate = 0;
+    let power = 1;
+    for (let k = 0; k < derivatives.length; k += 1) {
+      rate += derivatives[k] * power;
+      power *= t / (k + 1);
+    }
+    frequencyRateFittedHzPerS[i] = rate;
     turnsFitted[i] = ((columns.residualUs[i] as number) * 1e-6) * value.frequencyHz; // r = turns / F (timing-residuals.ts Note 3)
   }
   return {
     count: n, fitted, days, backend: columns.backend, usable, weights, nearestPulse, turnsFitted, phaseFittedHi, phaseFittedLo,
+    laterDelaysFittedS, frequencyFittedHz, frequencyRateFittedHzPerS, companionDelayCache, spinKey: spinKeyOf(fitted),
     partials: new Map(columns.partials.map((p) => [p.parameter, p.secondsPerUnit])),
   };
 }
@@ -147,6 +193,10 @@ export function preparePreview(columns: PreviewColumns, fitted: TimingModel): Pr
  *           φ_edited(e_edited) − φ_fitted(e_fitted) (spin-phase.ts, double-double), then re-wraps to the
  *           nearest pulse where the fit did, and becomes seconds with the edited model's instantaneous
  *           frequency. Turning a companion off therefore adds its delay to the residual.
+ *           While spin and glitches are unedited (and the model has no glitch), the phase change is the
+ *           series F·Δ + ½Ḟ·Δ² in Δ = e_edited − e_fitted, with F and Ḟ at the fitted emission time (the
+ *           same number to ≪ 1 ps, without the double-double phase); unchanged companions reuse their
+ *           fitted delays, so a toggle evaluates no orbit at all.
  *        2. First-order part: Σ ∂r/∂p · Δp over astrometry and dispersion parameters (Δp in file units,
  *           partials at the fitted values); a DM derivative the fit did not have uses the DM partial
  *           times its Taylor coefficient t^(k+1)/(k+1)! (t in Julian years from the barycentric days).
@@ -160,12 +210,35 @@ export function previewResiduals(prepared: PreparedPreview, edited: TimingModel)
   if (edited.epochMjd.day !== fitted.epochMjd.day || edited.epochMjd.frac[0] !== fitted.epochMjd.frac[0] || edited.epochMjd.frac[1] !== fitted.epochMjd.frac[1]) {
     throw new TimingInputError('the model epoch was changed: previews need the fitted epoch (queue a fit instead)', [{ path: 'epoch_mjd', message: 'changed' }]);
   }
-  const companions = companionDelaysFromDaysS(edited.companions, days);
+  const companions = companionDelaysS(edited.companions, days, prepared.companionDelayCache);
   const offsets = offsetsPerToa(edited, prepared.backend);
+  const residualS = new Float64Array(n);
+  if (edited.glitches.length === 0 && spinKeyOf(edited) === prepared.spinKey) {
+    // Note 1, spin unchanged: φ(e + Δ) − φ(e) = F·Δ + ½Ḟ·Δ² (the next term, F̈Δ³/6, is < 1e-12 turn for |Δ| < 1e4 s)
+    for (let i = 0; i < n; i += 1) {
+      if (prepared.usable[i] === 0) {
+        residualS[i] = Number.NaN;
+        continue;
+      }
+      const shiftS = prepared.laterDelaysFittedS[i] - (offsets[i] + companions[i]); // e_edited − e_fitted
+      const f = prepared.frequencyFittedHz[i];
+      const rate = prepared.frequencyRateFittedHzPerS[i];
+      let turns = prepared.turnsFitted[i] + shiftS * (f + 0.5 * rate * shiftS);
+      if (prepared.nearestPulse[i] === 1) turns -= Math.round(turns);
+      residualS[i] = turns / (f + rate * shiftS);
+    }
+  } else {
+    exactPhaseResiduals(prepared, edited, offsets, companions, residualS);
+  }
+  return finishPreview(prepared, edited, residualS);
+}
+
+/** Note 1 with the spin phase evaluated in full under the edited model (spin or glitch edits). */
+function exactPhaseResiduals(prepared: PreparedPreview, edited: TimingModel, offsets: Float64Array, companions: Float64Array, residualS: Float64Array): void {
   const spin: PreparedSpin = prepareSpin(edited);
   const value: SpinPhaseValue = { turnsHi: 0, turnsLo: 0, frequencyHz: 0 };
-  const residualS = new Float64Array(n);
-  for (let i = 0; i < n; i += 1) {
+  const days = prepared.days;
+  for (let i = 0; i < prepared.count; i += 1) {
     if (prepared.usable[i] === 0) {
       residualS[i] = Number.NaN;
       continue;
@@ -175,6 +248,11 @@ export function previewResiduals(prepared: PreparedPreview, edited: TimingModel)
     if (prepared.nearestPulse[i] === 1) turns -= Math.round(turns);
     residualS[i] = turns / value.frequencyHz;
   }
+}
+
+/** Notes 2 and 3: first-order terms, weighted mean removed, statistics. */
+function finishPreview(prepared: PreparedPreview, edited: TimingModel, residualS: Float64Array): PreviewResult {
+  const { fitted, count: n } = prepared;
   const firstOrder = addFirstOrder(prepared, edited, residualS);
   // Note 3
   let sumW = 0;
