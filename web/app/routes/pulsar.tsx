@@ -14,6 +14,7 @@ import { formatCount, formatDateTimeUtc, formatMjd } from '../../lib/format';
 import { useMe } from '../../features/auth/api/get-me';
 import { isFinalFitStatus } from '../../features/fit-runs/api/get-fit-run';
 import { fitRunsQueryOptions, useFitRuns } from '../../features/fit-runs/api/get-fit-runs';
+import { FitComparisonSection } from '../../features/fit-comparison/components/fit-comparison-section';
 import { FitRunList } from '../../features/fit-runs/components/fit-run-list';
 import { QueueFitPanel } from '../../features/fit-runs/components/queue-fit-panel';
 import { formatReducedChi2, formatRmsUs } from '../../features/fit-runs/lib/format-fit';
@@ -73,7 +74,7 @@ function ToaBatchesSection({ pulsarId, canDelete, canUpload }: { pulsarId: strin
   );
 }
 
-function RevisionsSection({ pulsarId, canEdit }: { pulsarId: string; canEdit: boolean }) {
+function RevisionsSection({ pulsarId, canEdit, canRelease }: { pulsarId: string; canEdit: boolean; canRelease: boolean }) {
   const revisions = useRevisions(pulsarId);
   const [selectedIds, setSelectedIds] = useState<number[]>([]);
   const pair =
@@ -98,7 +99,7 @@ function RevisionsSection({ pulsarId, canEdit }: { pulsarId: string; canEdit: bo
       ) : (
         <div className="flex flex-col gap-4">
           <p className="text-xs text-night-400">Tick two revisions to see what changed between their models.</p>
-          <RevisionTimeline revisions={revisions.data} selectedIds={selectedIds} onSelectedIdsChange={setSelectedIds} />
+          <RevisionTimeline revisions={revisions.data} selectedIds={selectedIds} onSelectedIdsChange={setSelectedIds} canRelease={canRelease} />
           {pair ? <RevisionDiff olderId={pair[0]} newerId={pair[1]} /> : null}
         </div>
       )}
@@ -222,9 +223,10 @@ export default function PulsarRoute() {
         </Card>
         <ToaBatchesSection pulsarId={id} canDelete={can(WORKFLOW_PERMISSIONS.deleteToaBatches)} canUpload={can(WORKFLOW_PERMISSIONS.uploadToas)} />
         <div className="grid grid-cols-1 items-start gap-6 xl:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
-          <RevisionsSection pulsarId={id} canEdit={can(WORKFLOW_PERMISSIONS.editModels)} />
+          <RevisionsSection pulsarId={id} canEdit={can(WORKFLOW_PERMISSIONS.editModels)} canRelease={can(PERMISSIONS.releaseModels)} />
           <div className="flex min-w-0 flex-col gap-6">
             <FitRunsSection pulsarId={id} canRun={can(WORKFLOW_PERMISSIONS.runFits)} />
+            <FitComparisonSection pulsarId={id} canSave={can(PERMISSIONS.compareFits)} />
           </div>
         </div>
         <CompanionSearchSection pulsarId={id} canRun={can(SEARCH_PERMISSIONS.runSearches)} />
