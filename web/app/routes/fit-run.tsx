@@ -20,6 +20,7 @@ import { FitStatusBadge } from '../../features/fit-runs/components/fit-status-ba
 import { fittedModelUrl, residualsCsvUrl } from '../../features/fit-runs/lib/fit-run-downloads';
 import { WORKFLOW_PERMISSIONS } from '../../features/pulsars/lib/workflow-permissions';
 import { ResidualPlotPanel } from '../../features/residual-plot/components/lazy-residual-plot';
+import { RevisionReleaseMark } from '../../features/revisions/components/revision-release-mark';
 import { hasPermission, requireSession } from '../session';
 
 export const clientLoader =
@@ -162,6 +163,7 @@ export default function FitRunRoute() {
         <span className="flex flex-wrap items-center gap-2">
           <TextLink to={paths.pulsar.href(String(r.pulsarId))}>← Pulsar</TextLink>
           <span>· revision #{r.revisionId}</span>
+          <RevisionReleaseMark revisionId={r.revisionId} />
           <FitStatusBadge status={r.status} />
         </span>
       }
