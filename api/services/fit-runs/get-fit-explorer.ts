@@ -19,6 +19,8 @@ import { AppError, notFound } from '../../errors';
 
 /** A number for JSON: NaN (not evaluated) becomes 0, as the contract says. */
 const finiteOrZero = (x: number): number => (Number.isFinite(x) ? x : 0);
+/** A stored Float32 value in 9 significant digits: enough to read back the same Float32, half the JSON of its full float64 text. */
+const float32OrZero = (x: number): number => (Number.isFinite(x) ? Number(x.toPrecision(9)) : 0);
 
 export async function getFitExplorer(knex: Knex, fitRunId: number): Promise<ExplorerTable> {
   const run = await findFitRun(knex, fitRunId);
@@ -65,7 +67,7 @@ export async function getFitExplorer(knex: Knex, fitRunId: number): Promise<Expl
       backendOffsetS: list(c.backendOffsetS),
       companionsS: list(c.companionsS),
     },
-    partials: c.partialPaths.map((p, j) => ({ ...p, secondsPerUnit: Array.from(c.partials[j], finiteOrZero) })),
+    partials: c.partialPaths.map((p, j) => ({ ...p, secondsPerUnit: Array.from(c.partials[j], float32OrZero) })),
     phaseOffsetTurns: c.phaseOffsetTurns,
     spinFrequencyHz: c.spinFrequencyHz,
     weightedRmsUs: run.weighted_rms_us,
