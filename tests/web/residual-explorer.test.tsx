@@ -15,7 +15,7 @@ vi.mock('plotly.js-dist-min', () => ({ default: plotlyMock }));
 vi.mock('react-plotly.js/factory', () => ({
   default: () =>
     function FakePlot(props: {
-      data: { name: string; x: ArrayLike<number>; customdata?: ArrayLike<number>; marker?: { symbol: string; color: string } }[];
+      data: { name: string; x: ArrayLike<number>; customdata?: ArrayLike<number>; marker?: { symbol: string; color: string }; visible?: true | 'legendonly' }[];
       layout: { xaxis?: { title?: { text?: string } }; yaxis?: { title?: { text?: string } } };
       onSelected?: (event: { points: { customdata: number }[] }) => void;
       onInitialized?: (figure: unknown, div: HTMLElement) => void;
@@ -25,6 +25,7 @@ vi.mock('react-plotly.js/factory', () => ({
           // The periodogram panel draws with Plotly too; only the residual plot is "plotly".
           data-testid={props.layout.yaxis?.title?.text?.startsWith('Residual') ? 'plotly' : 'plotly-other'}
           data-traces={props.data.map((t) => `${t.name}:${t.x.length}:${t.marker?.symbol ?? 'line'}`).join(',')}
+          data-hidden={props.data.filter((t) => t.visible === 'legendonly').map((t) => t.name).join(',')}
           ref={(div) => {
             if (div) props.onInitialized?.({}, div);
           }}
@@ -170,6 +171,7 @@ describe('residual explorer', () => {
     expect(screen.getByText(/Last preview took/)).toBeTruthy();
     await user.click(toggle);
     expect(rmsText()).toBe(before);
+    expect(screen.getByRole('status', { name: 'Summary' }).textContent).not.toContain('preview');
     expect(server.calls.filter((c) => c.method === 'POST')).toEqual([]);
   });
 
@@ -295,6 +297,22 @@ describe('residual explorer', () => {
     expect(screen.getByTestId('plotly').getAttribute('data-traces')).toContain('Delay of b:2000:line');
     await user.selectOptions(screen.getByLabelText('Colour and symbol by'), 'observatory');
     expect(screen.getByTestId('plotly').getAttribute('data-traces')).toMatch(/^obs-a:26:circle,obs-b:13:square/);
+  });
+
+  it('hides and shows groups from the keyboard, never all of them', async () => {
+    mockApi(routes(explorerTable()));
+    const { user } = renderApp('/pulsars/4/explorer?fit=31');
+    await screen.findByTestId('plotly');
+    const groups = screen.getByRole('group', { name: 'Groups drawn' });
+    const wide = within(groups).getByRole('button', { name: /wide-1 \(20\)/ });
+    wide.focus();
+    await user.keyboard('{Enter}');
+    expect(wide.getAttribute('aria-pressed')).toBe('false');
+    expect(screen.getByTestId('plotly').getAttribute('data-hidden')).toBe('wide-1');
+    await user.click(within(groups).getByRole('button', { name: /Excluded from fits/ }));
+    expect((within(groups).getByRole('button', { name: /narrow-2/ }) as HTMLButtonElement).disabled).toBe(true); // the last one drawn
+    await user.click(wide);
+    expect(screen.getByTestId('plotly').getAttribute('data-hidden')).toBe('Excluded from fits');
   });
 
   it('tells a viewer that exclusions need another role', async () => {

@@ -7,6 +7,12 @@ export interface CompanionSummary {
   periodDays: string;
 }
 
+/** A decimal for a label: at most 7 significant digits (the model keeps every digit). */
+function shortNumber(text: string): string {
+  const value = Number(text);
+  return Number.isFinite(value) && text.replace(/[^0-9]/g, '').replace(/^0+/, '').length > 7 ? String(Number(value.toPrecision(7))) : text;
+}
+
 /** The companions of a model-file JSON, as the switches list them (missing keys shown as "?"). */
 export function companionsOfModel(model: Record<string, unknown>): CompanionSummary[] {
   const list = Array.isArray(model.companions) ? (model.companions as Record<string, unknown>[]) : [];
@@ -14,7 +20,7 @@ export function companionsOfModel(model: Record<string, unknown>): CompanionSumm
     name: String(c.name ?? '?'),
     kind: String(c.kind ?? '?'),
     enabled: c.enabled !== false,
-    periodDays: c.period_days === undefined ? '?' : String(c.period_days),
+    periodDays: c.period_days === undefined ? '?' : shortNumber(String(c.period_days)),
   }));
 }
 

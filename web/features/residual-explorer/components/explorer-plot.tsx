@@ -27,6 +27,9 @@ export interface ExplorerPlotProps {
   /** Called with the table row indices inside a box or lasso (empty when the selection is cleared). */
   onSelect(indices: number[]): void;
   onReady?(handle: PlotHandle | null): void;
+  /** Legend click (hide or show that group) and double-click (show only it); the screen keeps the state. */
+  onLegendToggle?(traceName: string): void;
+  onLegendIsolate?(traceName: string): void;
   height?: number;
 }
 
@@ -35,7 +38,7 @@ interface SelectedPoint {
 }
 
 /** Residuals against the chosen x quantity; box and lasso select TOAs; the legend hides groups. */
-export default function ExplorerPlot({ traces, xTitle, yTitle, revision, onSelect, onReady, height = 420 }: ExplorerPlotProps) {
+export default function ExplorerPlot({ traces, xTitle, yTitle, revision, onSelect, onReady, onLegendToggle, onLegendIsolate, height = 420 }: ExplorerPlotProps) {
   const graphDiv = useRef<HTMLElement | null>(null);
   // Keeps the user's zoom, hidden legend groups and drag mode across redraws of the same axes.
   const uiRevision = `${xTitle}|${yTitle}`;
@@ -101,6 +104,16 @@ export default function ExplorerPlot({ traces, xTitle, yTitle, revision, onSelec
       onUpdate={remember}
       onSelected={selected}
       onDeselect={() => onSelect([])}
+      onLegendClick={(event: { curveNumber: number }) => {
+        const name = traces[event.curveNumber]?.name;
+        if (name && onLegendToggle) onLegendToggle(name);
+        return !onLegendToggle; // false: the screen, not Plotly, decides what is shown
+      }}
+      onLegendDoubleClick={(event: { curveNumber: number }) => {
+        const name = traces[event.curveNumber]?.name;
+        if (name && onLegendIsolate) onLegendIsolate(name);
+        return !onLegendIsolate;
+      }}
       useResizeHandler
       style={{ width: '100%' }}
       className="w-full"

@@ -18,6 +18,7 @@ import { CompanionSwitches, companionsOfModel } from './companion-switches';
 import { DelayComponentsTable, type DelayComponentsRow } from './delay-components-table';
 import type { ImageFormat, PlotHandle } from './explorer-plot';
 import { ExportActions } from './export-actions';
+import { GroupToggles } from './group-toggles';
 import { PeriodogramPanel } from './periodogram-panel';
 import type { SeededCompanion } from '../lib/panels/companion-seed';
 import { PlotControls, type PlotChoices } from './plot-controls';
@@ -70,12 +71,18 @@ function companionsSwitchedOff(fitted: Record<string, unknown>, edited: Record<s
  * the delay chain of the selected TOAs and a fit queued with the current exclusions.
  */
 export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canRunFits }: ResidualExplorerProps) {
-  const [editedModel, setEditedModel] = useState<Record<string, unknown>>(table.fittedModel);
+  const [editedState, setEditedModel] = useState<Record<string, unknown>>(table.fittedModel);
+  // An edit that ends where it began (a companion off, then on again) shows the fit itself again.
+  const editedModel = useMemo(
+    () => (editedState === table.fittedModel || JSON.stringify(editedState) === JSON.stringify(table.fittedModel) ? table.fittedModel : editedState),
+    [editedState, table.fittedModel],
+  );
   const [choices, setChoices] = useState<PlotChoices>(() => {
     const first = companionsOfModel(table.fittedModel)[0];
     return { x: 'mjd', y: 'us', groupBy: 'backend', companion: first?.name ?? '', showCurve: false };
   });
   const [selected, setSelected] = useState<ReadonlySet<number>>(new Set());
+  const [hiddenGroups, setHiddenGroups] = useState<ReadonlySet<string>>(new Set());
   const [history, setHistory] = useState<AppliedChange[]>([]);
   const [queuedRunId, setQueuedRunId] = useState<number | null>(null);
   const plotHandle = useRef<PlotHandle | null>(null);
@@ -140,6 +147,7 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
       spinFrequencyHz,
       hover,
       selected: selected.size > 0 ? selected : null,
+      hidden: hiddenGroups,
     });
     if (choices.showCurve && chosenCompanion) {
       const curve = companionDelayCurve(chosenCompanion, days, choices.x);
@@ -157,7 +165,18 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
     }
     revision.current += 1;
     return list;
-  }, [groups, x, shown, table, choices.y, choices.showCurve, choices.x, spinFrequencyHz, hover, selected, chosenCompanion, days]);
+  }, [groups, x, shown, table, choices.y, choices.showCurve, choices.x, spinFrequencyHz, hover, selected, hiddenGroups, chosenCompanion, days]);
+  const toggleGroup = useCallback(
+    (name: string) =>
+      setHiddenGroups((hidden) => {
+        const next = new Set(hidden);
+        if (next.has(name)) next.delete(name);
+        else if (groups.some((g) => g.name !== name && !hidden.has(g.name))) next.add(name); // never hide the last group
+        return next;
+      }),
+    [groups],
+  );
+  const isolateGroup = useCallback((name: string) => setHiddenGroups(new Set(groups.map((g) => g.name).filter((n) => n !== name))), [groups]);
 
   // The periodogram looks at the TOAs in use that have a residual, as shown (after toggles and edits).
   const periodogramInput = useMemo(() => {
@@ -265,11 +284,14 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
                 revision={revision.current}
                 onSelect={onSelect}
                 onReady={onReady}
+                onLegendToggle={toggleGroup}
+                onLegendIsolate={isolateGroup}
               />
             </Suspense>
+            <GroupToggles groups={groups} hidden={hiddenGroups} onHiddenChange={setHiddenGroups} />
             <p className="text-xs text-night-400">
-              Each {choices.groupBy} has its own colour and symbol; hollow grey points are excluded from fits. Click a legend entry to hide
-              its group, double-click to show only it. Drag to select TOAs (the lasso is in the plot's toolbar).
+              Each {choices.groupBy} has its own colour and symbol; hollow grey points are excluded from fits. Click a legend entry (or a
+              button above) to hide its group, double-click the entry to show only it. Drag to select TOAs (the lasso is in the plot's toolbar).
             </p>
             <SelectionActions
               selectedCount={selected.size}

@@ -26,6 +26,7 @@ export interface ExplorerTrace {
   hovertemplate?: string;
   hoverinfo?: 'skip';
   selectedpoints?: number[] | null;
+  visible?: true | 'legendonly';
 }
 
 /** One hover line per TOA with what does not change under a preview (built once per table). */
@@ -55,6 +56,8 @@ export interface TraceInputs {
   hover: readonly string[];
   /** Selected row indices (highlighted; the rest dimmed), or null for no selection. */
   selected: ReadonlySet<number> | null;
+  /** Group names hidden by the user (kept in the legend, not drawn). */
+  hidden?: ReadonlySet<string>;
 }
 
 /**
@@ -98,6 +101,7 @@ export function explorerTraces(input: TraceInputs): ExplorerTrace[] {
         `%{text}<br>residual %{y:${digits}} ± %{error_y.array:${digits}} ${unit}` +
         `${group.excluded ? '<br>excluded from fits' : ''}<extra>%{fullData.name}</extra>`,
       selectedpoints: input.selected === null ? null : selectedpoints,
+      visible: input.hidden?.has(group.name) ? 'legendonly' : true,
     };
   });
 }
