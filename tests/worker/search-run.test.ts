@@ -13,7 +13,9 @@ import path from 'node:path';
 import { UnrecoverableError, type Job } from 'bullmq';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { SearchPeriodograms, SearchRun } from '../../api/contracts/search-runs';
+import { HIDDEN_COMPANIONS, STARTING_REVISION_MESSAGE } from '../../api/db/demo-scenario/demo-pulsars';
 import type { ObservatoryJson } from '../../api/db/observatories';
+import { seedDemo } from '../../api/db/seed-demo';
 import { processSearchRun } from '../../worker/jobs/search-run';
 import { startWorker } from '../../worker/index';
 import { readModelFile } from '../../worker/timing/model/read-model-file';
@@ -211,6 +213,34 @@ describe('a search through the API on data with one injected companion', () => {
     expect(result.peaks.map((p) => [p.periodDays, p.falseAlarmProbability])).toEqual(fromCli.peaks.map((p) => [p.period_days, p.false_alarm_probability]));
     expect(result.finalFit.chi2).toBe(fromCli.chi2);
     expect(result.resultingModel).toEqual(fromCli.model);
+  });
+});
+
+describe('the demo pulsar with two hidden companions (api/db/seed-demo.ts)', () => {
+  it('recovers both invented companions within 3σ, nothing spurious, and saves them as a revision', async () => {
+    await seedDemo(t.knex);
+    const demo = await t.knex('pulsars').where({ name: 'FPG-J2208+4121' }).first('id');
+    const start = await t.knex('model_revisions').where({ pulsar_id: demo.id, message: STARTING_REVISION_MESSAGE }).orderBy('id').first('id');
+    const res = await queueSearch(Number(demo.id), { revisionId: Number(start.id), recompute: true });
+    expect(res.status, JSON.stringify(res.body)).toBe(202);
+    const run = await waitForRun(res.body.data.searchRun.id, isFinal);
+    expect(run.status, run.errorMessage ?? '').toBe('succeeded');
+    const result = run.result!;
+    const accepted = result.candidates.filter((c) => c.status === 'accepted');
+    expect(result.companionsFound).toBe(HIDDEN_COMPANIONS.length);
+    expect(result.stopReason).toBe('false-alarm-above-threshold');
+    for (const truth of HIDDEN_COMPANIONS) {
+      const match = accepted.find((c) => Math.abs(Number(c.elements.period_days.value) / Number(truth.period_days) - 1) < 0.05);
+      expect(match, `a candidate near ${truth.period_days} d`).toBeDefined();
+      const period = match!.elements.period_days;
+      const x = match!.elements.projected_semimajor_axis_lt_s;
+      expect(Math.abs(Number(period.value) - Number(truth.period_days)) / period.uncertainty!).toBeLessThan(3);
+      expect(Math.abs(Number(x.value) - Number(truth.projected_semimajor_axis_lt_s)) / x.uncertainty!).toBeLessThan(3);
+    }
+    const saved = await analyst.agent.post(`/api/search-runs/${run.id}/save-revision`).set('x-csrf-token', analyst.csrf).send({ message: 'two companions found by the search' });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+    expect(saved.body.data.parentId).toBe(Number(start.id));
+    expect(readModelFile(saved.body.data.model).companions.map((c) => c.name).sort()).toEqual(accepted.map((c) => c.name).sort());
   });
 });
 
