@@ -9,7 +9,7 @@ import { Spinner } from '../../../components/spinner';
 import { Table, TBody, Td, Th, THead, Tr } from '../../../components/table';
 import { cn } from '../../../lib/cn';
 import { formatCount } from '../../../lib/format';
-import { freeCompanionName, seedCompanionFromPeak, type CompanionSeed, type SeededCompanion } from '../lib/panels/companion-seed';
+import { companionFromSinusoid, freeCompanionName, type CompanionSeed, type SeededCompanion } from '../lib/panels/companion-seed';
 import {
   DEFAULT_MIN_PERIOD_DAYS,
   FAP_LEVELS,
@@ -86,12 +86,9 @@ export function PeriodogramPanel({ tDays, residualUs, uncertaintyUs, referenceMj
   const chosenPeak = chosen !== null && chosen < peaks.length ? peaks[chosen] : null;
   const seed = useMemo<{ seed?: CompanionSeed; error?: string } | null>(() => {
     if (!chosenPeak) return null;
-    try {
-      return { seed: seedCompanionFromPeak(tDays, residualUs, uncertaintyUs, chosenPeak.freqPerDay, result!.grid.stepPerDay, referenceMjd, freeCompanionName(existingCompanionNames)) };
-    } catch (e) {
-      return { error: e instanceof Error ? e.message : String(e) };
-    }
-  }, [chosenPeak, result, tDays, residualUs, uncertaintyUs, referenceMjd, existingCompanionNames]);
+    if (!chosenPeak.sinusoid) return { error: 'The TOAs do not constrain a sinusoid at this period (all at nearly the same phase).' };
+    return { seed: companionFromSinusoid(chosenPeak.sinusoid, referenceMjd, freeCompanionName(existingCompanionNames)) };
+  }, [chosenPeak, referenceMjd, existingCompanionNames]);
 
   const pickPeriod = (periodDays: number) => {
     if (peaks.length === 0) return;

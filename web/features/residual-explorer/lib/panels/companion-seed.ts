@@ -55,10 +55,35 @@ export function seedCompanionFromPeak(
   referenceMjd: string,
   name: string,
 ): CompanionSeed {
+  return companionFromSinusoid(peakSinusoid(tDays, residualUs, uncertaintyUs, freqPerDay, gridStepPerDay), referenceMjd, name);
+}
+
+/** The sinusoid behind a periodogram peak: frequency refined within ± one grid step (Note 2 above), then fitted. */
+export interface PeakSinusoid {
+  freqPerDay: number;
+  amplitudeUs: number;
+  amplitudeUncertaintyUs: number;
+  /** upward zero crossing, days since the origin of tDays, near the middle of the data */
+  zeroPhaseDays: number;
+}
+
+/** The refined, fitted sinusoid of a peak (the costly part of the seed: ~30 fits of N samples). */
+export function peakSinusoid(
+  tDays: Float64Array,
+  residualUs: Float64Array,
+  uncertaintyUs: Float64Array,
+  freqPerDay: number,
+  gridStepPerDay: number,
+): PeakSinusoid {
   const refinedPerDay = refinePeakFrequency(tDays, residualUs, uncertaintyUs, freqPerDay, gridStepPerDay);
-  const sinusoid = fitSinusoidAtFrequency(tDays, residualUs, uncertaintyUs, refinedPerDay);
-  const periodDays = 1 / refinedPerDay;
-  const xLtS = sinusoid.amplitude / MICROSECONDS_PER_SECOND; // delay = x·sin(2π(t − T₀)/P_b) for e = 0: Blandford & Teukolsky 1976
+  const fit = fitSinusoidAtFrequency(tDays, residualUs, uncertaintyUs, refinedPerDay);
+  return { freqPerDay: refinedPerDay, amplitudeUs: fit.amplitude, amplitudeUncertaintyUs: fit.amplitudeUncertainty, zeroPhaseDays: fit.zeroPhaseDays };
+}
+
+/** The circular companion of a fitted peak sinusoid (see seedCompanionFromPeak, Note 1). */
+export function companionFromSinusoid(sinusoid: PeakSinusoid, referenceMjd: string, name: string): CompanionSeed {
+  const periodDays = 1 / sinusoid.freqPerDay;
+  const xLtS = sinusoid.amplitudeUs / MICROSECONDS_PER_SECOND; // delay = x·sin(2π(t − T₀)/P_b) for e = 0: Blandford & Teukolsky 1976
   return {
     companion: {
       name,
@@ -70,8 +95,8 @@ export function seedCompanionFromPeak(
       periastron_longitude_deg: 0,
       periastron_epoch_mjd: addDaysToMjdText(referenceMjd, sinusoid.zeroPhaseDays, 6),
     },
-    amplitudeUs: sinusoid.amplitude,
-    amplitudeUncertaintyUs: sinusoid.amplitudeUncertainty,
+    amplitudeUs: sinusoid.amplitudeUs,
+    amplitudeUncertaintyUs: sinusoid.amplitudeUncertaintyUs,
   };
 }
 

@@ -2,6 +2,7 @@ import { aliasFlags, dominantCadenceDays } from '../../../../../worker/timing/pe
 import { falseAlarmBaluev } from '../../../../../worker/timing/periodogram/false-alarm-probability';
 import { gridFrequenciesPerDay, periodogramGrid, type FrequencyGrid } from '../../../../../worker/timing/periodogram/frequency-grid';
 import { lombScargleFast } from '../../../../../worker/timing/periodogram/lomb-scargle-fast';
+import { peakSinusoid, type PeakSinusoid } from './companion-seed';
 import { powerAtFalseAlarm } from './fap-power-level';
 
 /** The false-alarm probabilities drawn as levels on the plot. */
@@ -31,6 +32,8 @@ export interface PeriodogramPeak {
   falseAlarmProbability: number;
   /** alias and systematics warnings (alias-flags.ts), code-prefixed */
   warnings: string[];
+  /** the sinusoid behind the peak (refined frequency, amplitude, phase) for seeding a companion; null when it cannot be fitted */
+  sinusoid: PeakSinusoid | null;
 }
 
 export interface ResidualPeriodogram {
@@ -59,6 +62,8 @@ export interface ResidualPeriodogram {
  * Notes: 1. Each listed peak's FAP is the Baluev probability of the highest peak reaching its power,
  *    i.e. the chance noise alone puts a peak that high anywhere in the band (an upper bound).
  * 2. Weights are 1/σ², normalised, as in the periodogram itself.
+ * 3. Each listed peak carries its fitted sinusoid (companion-seed.ts peakSinusoid), so choosing a
+ *    peak on the main thread costs nothing; this runs in the worker with the periodogram.
  * Throws RangeError for fewer than MIN_PERIODOGRAM_SAMPLES samples, zero span or bad ranges.
  * References: Zechmeister & Kürster 2009, A&A 496, 577; Press & Rybicki 1989, ApJ 338, 277;
  *   Baluev 2008, MNRAS 385, 1279; Deeming 1975, Ap&SS 36, 137 (aliases).
@@ -101,6 +106,7 @@ export function computeResidualPeriodogram(request: PeriodogramRequest): Residua
         strongerPeaksPerDay,
         resolutionPerDay,
       }),
+      sinusoid: sinusoidOrNull(tDays, residualUs, uncertaintyUs, freqPerDay, grid.stepPerDay),
     };
   });
   return {
@@ -115,6 +121,15 @@ export function computeResidualPeriodogram(request: PeriodogramRequest): Residua
     maxPeriodDays,
     elapsedMs: performance.now() - started,
   };
+}
+
+function sinusoidOrNull(tDays: Float64Array, y: Float64Array, sigma: Float64Array, freqPerDay: number, stepPerDay: number): PeakSinusoid | null {
+  try {
+    return peakSinusoid(tDays, y, sigma, freqPerDay, stepPerDay);
+  } catch (error) {
+    if (error instanceof RangeError) return null; // singular: no sinusoid at this frequency
+    throw error;
+  }
 }
 
 /**

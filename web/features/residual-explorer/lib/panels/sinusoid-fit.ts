@@ -57,19 +57,25 @@ export function fitSinusoidAtFrequency(
   }
   const centreDays = sumWt / sumW;
   const omega = 2 * Math.PI * freqPerDay;
-  // Normal matrix A = Σ w·g·gᵀ and right side Σ w·g·y for the basis g = (1, cos ωt, sin ωt).
-  const m = new Float64Array(9);
-  const r = new Float64Array(3);
+  // Normal matrix Σ w·g·gᵀ and right side r = Σ w·g·y for the basis g = (1, cos ωt, sin ωt).
+  let sw = 0, sc = 0, ss = 0, scc = 0, scs = 0, sss = 0, ry = 0, rc = 0, rs = 0; // prettier-ignore
   for (let i = 0; i < n; i++) {
     const w = 1 / (sigma[i] * sigma[i]);
     const phase = omega * (tDays[i] - centreDays);
-    const g = [1, Math.cos(phase), Math.sin(phase)];
-    for (let j = 0; j < 3; j++) {
-      r[j] += w * g[j] * y[i];
-      for (let k = 0; k < 3; k++) m[3 * j + k] += w * g[j] * g[k];
-    }
+    const c = Math.cos(phase);
+    const sn = Math.sin(phase);
+    sw += w;
+    sc += w * c;
+    ss += w * sn;
+    scc += w * c * c;
+    scs += w * c * sn;
+    sss += w * sn * sn;
+    ry += w * y[i];
+    rc += w * c * y[i];
+    rs += w * sn * y[i];
   }
-  const cov = invertSymmetric3(m);
+  const r = [ry, rc, rs];
+  const cov = invertSymmetric3(Float64Array.from([sw, sc, ss, sc, scc, scs, ss, scs, sss]));
   const coef = [0, 1, 2].map((j) => cov[3 * j] * r[0] + cov[3 * j + 1] * r[1] + cov[3 * j + 2] * r[2]);
   const [offset, a, b] = coef;
   const amplitude = Math.hypot(a, b);
@@ -106,7 +112,8 @@ function invertSymmetric3(m: Float64Array): Float64Array {
   return Float64Array.from([c00, c01, c02, c01, c11, c12, c02, c12, c22].map((v) => v / det));
 }
 
-const GOLDEN_STEPS = 40;
+// 0.618¹⁶ ≈ 4.5e-4 of the ±1-step bracket: frequency to ~1e-3 grid step, i.e. ≤ 2e-4 turns of phase drift over the span
+const GOLDEN_STEPS = 16;
 const INVERSE_GOLDEN = (Math.sqrt(5) - 1) / 2;
 
 /**
