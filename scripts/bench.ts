@@ -2,7 +2,7 @@
  * `npm run bench`: the speed and precision targets, measured and printed with
  * figures and ratios to their targets (never asserted in timed tests).
  */
-const suites = ['precision', 'barycentre', 'fit', 'periodogram', 'residual-store', 'upload', 'explorer'];
+const suites = ['precision', 'barycentre', 'fit', 'periodogram', 'search', 'residual-store', 'upload', 'explorer'];
 export {};
 for (const name of suites) {
   console.log(`\n== ${name} ==`);

@@ -53,13 +53,17 @@ describe('companion seeds', { timeout: 30_000 }, () => {
 });
 
 describe('defaultSearchPeriodRange', () => {
-  it('spans from twice the session cadence (at least 1 d) to the data span', () => {
+  it('spans from twice the median TOA spacing (at least 1 d) to the data span', () => {
     const every4Days = Float64Array.from({ length: 101 }, (_, i) => 4 * i);
-    expect(defaultSearchPeriodRange(every4Days)).toEqual({ minPeriodDays: 8, maxPeriodDays: 400, spanDays: 400, cadenceDays: 4 });
-    const hourly = Float64Array.from({ length: 49 }, (_, i) => i / 24); // one session: the median spacing applies
+    expect(defaultSearchPeriodRange(every4Days)).toEqual({ minPeriodDays: 8, maxPeriodDays: 400, spanDays: 400, medianSpacingDays: 4, cadenceDays: 4 });
+    const hourly = Float64Array.from({ length: 49 }, (_, i) => i / 24); // one session: no cadence, 1 d floor
     const range = defaultSearchPeriodRange(hourly);
     expect(range.minPeriodDays).toBe(1);
-    expect(range.cadenceDays).toBeCloseTo(1 / 24, 12);
+    expect(range.medianSpacingDays).toBeCloseTo(1 / 24, 12);
+    expect(range.cadenceDays).toBeNaN();
+    // sessions of 5 TOAs an hour apart every 14 days: the spacing inside sessions rules, the cadence is 14 d
+    const sessions = Float64Array.from({ length: 50 }, (_, i) => 14 * Math.floor(i / 5) + (i % 5) / 24);
+    expect(defaultSearchPeriodRange(sessions)).toMatchObject({ minPeriodDays: 1, cadenceDays: 14 });
     expect(() => defaultSearchPeriodRange(Float64Array.from([5, 5, 5]))).toThrow(/two distinct times/);
   });
 });

@@ -24,7 +24,7 @@ export interface CompanionSearchProgress {
 }
 
 export interface CompanionSearchOptions {
-  /** shortest trial period, days; default max(2 × median TOA spacing, 2 × dominant session cadence, 1 d) (docs/timing.md) */
+  /** shortest trial period, days; default max(1 d, 2 × median TOA spacing) (docs/timing.md) */
   minPeriodDays?: number;
   /** longest trial period, days; default the data span */
   maxPeriodDays?: number;

@@ -58,7 +58,7 @@ const COMPANION_NAMES = 'bcdefghijklmnopqrstuvwxyz'.split('');
  *           with everything in solve_for, then tried eccentric (candidate-fit.ts).
  *        4. A candidate that is unstable (no convergence, e → 1, period beyond the span) or degenerate
  *           (x not significant, period unconstrained, degenerate parameters) is reported, not added.
- *        5. Defaults: min period max(1 d, 2 × session cadence), max period the span, 3 companions,
+ *        5. Defaults: min period max(1 d, 2 × median TOA spacing), max period the span, 3 companions,
  *           false alarm 0.001, F-test 0.001, pulsar mass 1.4 M☉, oversampling 5 (docs/timing.md).
  * Throws TimingInputError / RangeError for a bad request (as fitPreparedArrivals and periodogramGrid:
  * bad paths, min period ≥ max period, …) and CompanionSearchCancelled when options.isCancelled() is true.
@@ -101,7 +101,7 @@ export function searchCompanions(model: TimingModel, toas: readonly Toa[], geome
     const pg = roundPeriodogram(series, grid);
     const periodDays = 1 / pg.peakFrequencyPerDay;
     const aliasWarnings = aliasFlags(periodDays, {
-      cadenceDays: range.cadenceDays > 0 ? range.cadenceDays : undefined,
+      cadenceDays: range.cadenceDays > 0 ? range.cadenceDays : undefined, // NaN (one session) → no cadence flags
       windowPeaksPerDay,
       strongerPeaksPerDay: peaks.map((p) => p.frequencyPerDay),
       resolutionPerDay: grid.stepPerDay * oversampling,
