@@ -4,6 +4,7 @@
  * session (MariaDB) → CSRF → current user → routes (each behind its access
  * check, see routes/route-table.ts) → 404 → the one error handler.
  */
+import compression from 'compression';
 import express, { type Application } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -80,6 +81,9 @@ export function createApp(deps: AppDeps): Application {
   const app = express();
   if (config.api.behindTls) app.set('trust proxy', 1); // the reverse proxy's X-Forwarded-* (client IP, https)
   app.use(securityHeaders(config.api.behindTls));
+  // gzip for the large columnar answers (a fit's explorer columns run to tens of MB as JSON). The sign-in
+  // and CSRF answers stay uncompressed: a compressed secret next to reflected input is what BREACH reads.
+  app.use(compression({ filter: (req, res) => !req.path.startsWith('/api/auth/') && compression.filter(req, res) }));
 
   const store = new SessionStore({ knex, cleanupIntervalMs: SESSION_CLEANUP_INTERVAL_MS, onError: (err) => log('session store', err) });
   app.locals.sessionStore = store;
