@@ -125,6 +125,10 @@ function routes(table: ExplorerTable, extra: Record<string, Parameters<typeof mo
     'GET /api/pulsars/:id/fit-runs': ok([RUN]),
     'GET /api/pulsars/:id/exclusions': ok([exclusion(1039)]),
     'GET /api/fit-runs/:id/explorer': ok(table),
+    'GET /api/fit-runs/:id': ok({
+      ...RUN,
+      result: { ...RUN.result, parameters: { 'spin.frequency_hz': { value: '190.25', uncertainty: 1e-11, unit: 'Hz', startValue: '190.25', changeSigma: 0 } }, fittedModel: MODEL },
+    }),
     ...extra,
   };
 }
@@ -173,6 +177,19 @@ describe('residual explorer', () => {
     expect(rmsText()).toBe(before);
     expect(screen.getByRole('status', { name: 'Summary' }).textContent).not.toContain('preview');
     expect(server.calls.filter((c) => c.method === 'POST')).toEqual([]);
+  });
+
+  it('previews a value typed into the parameter panel the same fast way', async () => {
+    mockApi(routes(explorerTable()));
+    const { user } = renderApp('/pulsars/4/explorer?fit=31');
+    await screen.findByTestId('plotly');
+    const before = rmsValue();
+    // A spin frequency 1e-9 Hz higher: over ~430 days the phase drifts by up to ~0.02 turns ≈ 100 µs.
+    const input = screen.getByLabelText('Spin frequency (Hz)');
+    await user.clear(input);
+    await user.type(input, '190.250000001');
+    await waitFor(() => expect(rmsValue()).toBeGreaterThan(10 * before));
+    expect(screen.getByRole('status', { name: 'Summary' }).textContent).toContain('preview of the edited model');
   });
 
   it('excludes the box-selected TOAs with a reason, shows the new count, and undoes it', async () => {

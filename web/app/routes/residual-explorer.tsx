@@ -69,6 +69,7 @@ function ExplorerForFit({ pulsarId, fitRunId }: { pulsarId: string; fitRunId: st
         exclusions={exclusions.data ?? null}
         canExclude={hasPermission(me.data, TOA_EXCLUDE_PERMISSION)}
         canRunFits={hasPermission(me.data, WORKFLOW_PERMISSIONS.runFits)}
+        canEditModels={hasPermission(me.data, WORKFLOW_PERMISSIONS.editModels)}
       />
     </>
   );

@@ -19,6 +19,7 @@ import { DelayComponentsTable, type DelayComponentsRow } from './delay-component
 import type { ImageFormat, PlotHandle } from './explorer-plot';
 import { ExportActions } from './export-actions';
 import { GroupToggles } from './group-toggles';
+import { ParameterPanel } from './parameter-panel';
 import { PeriodogramPanel } from './periodogram-panel';
 import type { SeededCompanion } from '../lib/panels/companion-seed';
 import { PlotControls, type PlotChoices } from './plot-controls';
@@ -38,6 +39,8 @@ export interface ResidualExplorerProps {
   exclusions: readonly ToaExclusion[] | null;
   canExclude: boolean;
   canRunFits: boolean;
+  /** models:edit — saving the edited model as a revision (with fits:run, also "save and queue fit"). */
+  canEditModels: boolean;
 }
 
 /** An undoable step: what was done, and the change that reverts it. */
@@ -70,7 +73,7 @@ function companionsSwitchedOff(fitted: Record<string, unknown>, edited: Record<s
  * actions (exclude, include again, undo), companion switches with an instant preview, exports,
  * the delay chain of the selected TOAs and a fit queued with the current exclusions.
  */
-export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canRunFits }: ResidualExplorerProps) {
+export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canRunFits, canEditModels }: ResidualExplorerProps) {
   const [editedState, setEditedModel] = useState<Record<string, unknown>>(table.fittedModel);
   // An edit that ends where it began (a companion off, then on again) shows the fit itself again.
   const editedModel = useMemo(
@@ -331,6 +334,16 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
         <aside className="flex flex-col gap-4" aria-label="Model and actions">
           <Card className="p-4">
             <CompanionSwitches model={editedModel} onModelChange={setEditedModel} previewMs={shown.previewMs} />
+          </Card>
+          <Card className="p-4" aria-label="Parameters">
+            <ParameterPanel
+              pulsarId={Number(pulsarId)}
+              explorer={table}
+              editedModel={editedModel}
+              onEditedModelChange={setEditedModel}
+              canSave={canEditModels && canRunFits}
+              onFitQueued={(run) => setQueuedRunId(run.id)}
+            />
           </Card>
           {canRunFits ? (
             <Card className="p-4">
