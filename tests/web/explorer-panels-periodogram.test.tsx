@@ -8,7 +8,7 @@ import { PeriodogramPanel } from '../../web/features/residual-explorer/component
 import { powerAtFalseAlarm } from '../../web/features/residual-explorer/lib/panels/fap-power-level';
 import { fitSinusoidAtFrequency, refinePeakFrequency } from '../../web/features/residual-explorer/lib/panels/sinusoid-fit';
 import { addDaysToMjdText } from '../../web/features/residual-explorer/lib/panels/mjd-text';
-import { computeResidualPeriodogram } from '../../web/features/residual-explorer/lib/panels/residual-periodogram';
+import { computeResidualPeriodogram, type PeriodogramRequest } from '../../web/features/residual-explorer/lib/panels/residual-periodogram';
 import { freeCompanionName, type SeededCompanion } from '../../web/features/residual-explorer/lib/panels/companion-seed';
 
 vi.mock('plotly.js-dist-min', () => ({ default: {} }));
@@ -21,8 +21,24 @@ vi.mock('react-plotly.js/factory', () => ({
 
 afterEach(() => {
   cleanup();
+  vi.unstubAllGlobals();
   vi.restoreAllMocks();
 });
+
+/** A stand-in for the browser's module Worker: runs the same computation a tick later and answers by event. */
+class FakeWorker extends EventTarget {
+  static created: { url: string; type: string | undefined }[] = [];
+  static jobs: number[] = [];
+  constructor(url: URL | string, options?: { type?: string }) {
+    super();
+    FakeWorker.created.push({ url: String(url), type: options?.type });
+  }
+  postMessage(job: { id: number; request: PeriodogramRequest }) {
+    FakeWorker.jobs.push(job.id);
+    setTimeout(() => this.dispatchEvent(new MessageEvent('message', { data: { id: job.id, result: computeResidualPeriodogram(job.request) } })), 0);
+  }
+  terminate() {}
+}
 
 /** Invented sampling: `n` TOAs scattered over `spanDays`, Gaussian noise of `sigmaUs`, plus `signal(t)`. */
 function residualSet(n: number, spanDays: number, sigmaUs: number, signal: (tDays: number) => number, seed = 7) {
@@ -123,6 +139,22 @@ describe('PeriodogramPanel', () => {
     const phaseError = ((epochOffset - zeroDays) / periodDays + 0.5) % 1 - 0.5; // wrap to (−½, ½] turns
     expectWithin(phaseError, 0, 0.01, 'epoch phase error (turns)');
     expect(await screen.findByText(/Companion c \(.* d\) is in the edited model/)).toBeTruthy();
+  });
+
+  it('computes in a module worker, once per burst of changes (debounced)', async () => {
+    FakeWorker.created = [];
+    FakeWorker.jobs = [];
+    vi.stubGlobal('Worker', FakeWorker);
+    const base = residualSet(200, 1000, 1, (t) => 2 * Math.sin((2 * Math.PI * t) / 23.4));
+    const props = { tDays: base.tDays, uncertaintyUs: base.uncertaintyUs, referenceMjd: '58000', onSeedCompanion: () => {} };
+    const { rerender } = render(<PeriodogramPanel {...props} residualUs={base.residualUs} />);
+    // Three quick changes of the residuals (as when toggling companions) within the settling time.
+    for (let k = 1; k <= 3; k++) rerender(<PeriodogramPanel {...props} residualUs={base.residualUs.map((y) => y + k * 1e-3)} />);
+    expect(await screen.findByText(/in the background\./, {}, { timeout: 10_000 })).toBeTruthy();
+    expect(FakeWorker.created).toHaveLength(1);
+    expect(FakeWorker.created[0].url).toMatch(/periodogram\.worker\.ts(\?.*)?$/);
+    expect(FakeWorker.created[0].type).toBe('module');
+    expect(FakeWorker.jobs).toHaveLength(1);
   });
 
   it('warns when the best peak of pure noise is not significant', async () => {

@@ -37,6 +37,7 @@ export function useResidualPeriodogram(request: PeriodogramRequest | null, debou
   const [state, setState] = useState<PeriodogramState>({ result: null, error: null, computing: request !== null, ranIn: null });
   const workerRef = useRef<Worker | null | undefined>(undefined);
   const latestId = useRef(0);
+  const pending = useRef<PeriodogramRequest | null>(null);
 
   useEffect(
     () => () => {
@@ -47,7 +48,16 @@ export function useResidualPeriodogram(request: PeriodogramRequest | null, debou
   );
 
   useEffect(() => {
+    const computeHere = (id: number, job: PeriodogramRequest) => {
+      try {
+        const result = computeResidualPeriodogram(job);
+        if (id === latestId.current) setState({ result, error: null, computing: false, ranIn: 'main thread' });
+      } catch (error) {
+        if (id === latestId.current) setState({ result: null, error: error instanceof Error ? error.message : String(error), computing: false, ranIn: 'main thread' });
+      }
+    };
     if (request === null) {
+      pending.current = null;
       setState({ result: null, error: null, computing: false, ranIn: null });
       return undefined;
     }
@@ -55,26 +65,26 @@ export function useResidualPeriodogram(request: PeriodogramRequest | null, debou
     setState((old) => ({ ...old, computing: true }));
     const timer = setTimeout(() => {
       if (workerRef.current === undefined) {
-        workerRef.current = createWorker();
-        workerRef.current?.addEventListener('message', (event: MessageEvent<PeriodogramAnswer>) => {
+        const worker = createWorker();
+        workerRef.current = worker;
+        worker?.addEventListener('message', (event: MessageEvent<PeriodogramAnswer>) => {
           const answer = event.data;
           if (answer.id !== latestId.current) return;
           setState('result' in answer
             ? { result: answer.result, error: null, computing: false, ranIn: 'worker' }
             : { result: null, error: answer.error, computing: false, ranIn: 'worker' });
         });
+        // A worker that cannot load (blocked script, old browser) is dropped; the page computes instead.
+        worker?.addEventListener('error', () => {
+          worker.terminate();
+          workerRef.current = null;
+          if (pending.current) computeHere(latestId.current, pending.current);
+        });
       }
+      pending.current = request;
       const worker = workerRef.current;
-      if (worker) {
-        worker.postMessage({ id, request });
-        return;
-      }
-      try {
-        const result = computeResidualPeriodogram(request);
-        if (id === latestId.current) setState({ result, error: null, computing: false, ranIn: 'main thread' });
-      } catch (error) {
-        if (id === latestId.current) setState({ result: null, error: error instanceof Error ? error.message : String(error), computing: false, ranIn: 'main thread' });
-      }
+      if (worker) worker.postMessage({ id, request });
+      else computeHere(id, request);
     }, debounceMs);
     return () => clearTimeout(timer);
   }, [request, debounceMs]);
