@@ -71,6 +71,7 @@ type Outcome =
  * "Queue fit" ask for a message; the second saves the revision and then queues a fit of it.
  */
 export function ParameterPanel({ pulsarId, explorer, editedModel, onEditedModelChange, canSave = true, onRevisionSaved, onFitQueued }: ParameterPanelProps) {
+  const titleId = useId();
   const baseline = explorer.fittedModel;
   const fitRun = useFitRun(String(explorer.fitRunId));
   const fitted = fitRun.data?.result?.parameters ?? {};
@@ -145,10 +146,10 @@ export function ParameterPanel({ pulsarId, explorer, editedModel, onEditedModelC
   };
 
   return (
-    <section aria-labelledby="parameter-panel-title" className="flex flex-col gap-4">
+    <section aria-labelledby={titleId} className="flex flex-col gap-4">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <div>
-          <h2 id="parameter-panel-title" className="text-base font-semibold text-night-100">
+          <h2 id={titleId} className="text-base font-semibold text-night-100">
             Parameters
           </h2>
           <p className="text-xs text-night-400" aria-live="polite">
@@ -343,7 +344,7 @@ function ParameterRow({
   const problem = localProblem(spec, text);
   const label = `${spec.label}${suffix}`;
   return (
-    <div className={cn('grid grid-cols-[minmax(0,1fr)_auto] items-start gap-x-3 gap-y-1 py-2', changed && '-mx-3 border-l-2 border-ember-400 bg-ember-500/5 px-3')}>
+    <div className={cn('flex flex-col gap-1.5 py-2', changed && '-mx-3 border-l-2 border-ember-400 bg-ember-500/5 px-3')}>
       <Field
         label={`${label} (${spec.unit})`}
         error={problem}
@@ -377,7 +378,7 @@ function ParameterRow({
           />
         )}
       </Field>
-      <div className="flex items-center gap-2 pt-7">
+      <div className="flex flex-wrap items-center gap-2">
         {spec.solvable ? <Switch checked={solve} onChange={onSolve} label={`Solve for ${label}`} visibleLabel="solve" /> : null}
         {changed ? (
           <Button variant="ghost" size="sm" className="h-7 px-2" onClick={onReset} aria-label={`Reset ${label}`}>
