@@ -34,6 +34,8 @@ export const DEFAULT_MAX_COMPANIONS = 3;
 export const DEFAULT_FALSE_ALARM_THRESHOLD = 1e-3;
 export const DEFAULT_ECCENTRICITY_THRESHOLD = 1e-3;
 export const DEFAULT_OVERSAMPLING = 5;
+/** A final reduced χ² above this gets a warning (the uncertainties are formal, not rescaled). */
+const HIGH_REDUCED_CHI2 = 1.5;
 /** Names given to new companions, in order, skipping names the model already uses. */
 const COMPANION_NAMES = 'bcdefghijklmnopqrstuvwxyz'.split('');
 
@@ -160,6 +162,9 @@ export function searchCompanions(model: TimingModel, toas: readonly Toa[], geome
   progress(peaks.length, 'done', 1);
   refreshAcceptedCandidates(candidates, current, pulsarMassSolar);
   if (!current.converged) warnings.push(`the final fit did not converge; last χ² = ${current.chi2}`);
+  if (current.reducedChi2 > HIGH_REDUCED_CHI2) {
+    warnings.push(`the final reduced χ² is ${current.reducedChi2.toFixed(2)}: the residuals hold more than the stated white noise (an unfitted offset, red noise, or a signal below the threshold), so the formal uncertainties are likely too small`);
+  }
   const settings: CompanionSearchSettings = {
     minPeriodDays,
     maxPeriodDays,
