@@ -216,12 +216,21 @@ export type SearchRunSummary = Omit<SearchRun, 'result'> & {
     | null;
 };
 
-/** One round's periodogram on its regular frequency grid f_k = minFrequencyPerDay + k·stepPerDay. */
+/**
+ * One round's periodogram on its regular frequency grid f_k = minFrequencyPerDay + k·stepPerDay.
+ * `pointsPerBin` 1: every frequency the engine evaluated. k > 1 (periodograms longer than
+ * MAX_STORED_PERIODOGRAM_POINTS): each power is the highest of k consecutive engine frequencies
+ * starting at f_k, and stepPerDay spans those k, so peaks keep their height.
+ */
 export interface SearchPeriodogram {
   round: number;
   grid: { minFrequencyPerDay: number; stepPerDay: number; count: number };
+  pointsPerBin: number;
   power: number[]; // count entries
 }
+
+/** Longest periodogram stored point for point (0.8 MB of Float64 per round). */
+export const MAX_STORED_PERIODOGRAM_POINTS = 100_000;
 
 /** GET /api/search-runs/:id/periodograms. */
 export interface SearchPeriodograms {

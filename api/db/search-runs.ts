@@ -5,14 +5,15 @@
  */
 import type { Knex } from 'knex';
 import type { UserRef } from '../contracts/fit-runs';
-import type {
-  SearchEngineSettings,
-  SearchOptions,
-  SearchPeriodogram,
-  SearchResult,
-  SearchRun,
-  SearchRunStatus,
-  SearchRunSummary,
+import {
+  MAX_STORED_PERIODOGRAM_POINTS,
+  type SearchEngineSettings,
+  type SearchOptions,
+  type SearchPeriodogram,
+  type SearchResult,
+  type SearchRun,
+  type SearchRunStatus,
+  type SearchRunSummary,
 } from '../contracts/search-runs';
 import { decodeFloat64Column, encodeFloat64Column } from './residual-columns';
 import { userRefs } from './revisions';
@@ -48,6 +49,7 @@ export interface SearchPeriodogramRow {
   min_frequency_per_day: number;
   step_per_day: number;
   count: number;
+  points_per_bin: number;
   power: Buffer;
 }
 
@@ -104,16 +106,44 @@ export async function reportSearchRunProgress(knex: Knex, id: number, percent: n
   return row?.status;
 }
 
-/** One round's periodogram as its stored row (power deflated). */
-export function encodeSearchPeriodogram(searchRunId: number, p: SearchPeriodogram | { round: number; grid: SearchPeriodogram['grid']; power: Float64Array }): SearchPeriodogramRow {
-  const power = p.power instanceof Float64Array ? p.power : Float64Array.from(p.power);
-  if (power.length !== p.grid.count) throw new RangeError(`encodeSearchPeriodogram: ${power.length} powers for a grid of ${p.grid.count}`);
+/** A periodogram as the engine computed it (every grid frequency). */
+export interface RawSearchPeriodogram {
+  round: number;
+  grid: SearchPeriodogram['grid'];
+  power: Float64Array;
+}
+
+/**
+ * Max-pools `power` into bins of `k` consecutive values (the last bin may be shorter).
+ *
+ * @returns  ceil(n / k) values, each the highest power of its bin
+ */
+export function maxPool(power: Float64Array, k: number): Float64Array {
+  const out = new Float64Array(Math.ceil(power.length / k));
+  for (let b = 0; b < out.length; b++) {
+    let best = -Infinity;
+    for (let i = b * k; i < Math.min(power.length, (b + 1) * k); i++) if (power[i] > best) best = power[i];
+    out[b] = best;
+  }
+  return out;
+}
+
+/**
+ * One round's periodogram as its stored row (power deflated). Longer than
+ * `maxPoints`: max-pooled into bins of k = ceil(count / maxPoints) grid points
+ * (migration 20261203100200).
+ */
+export function encodeSearchPeriodogram(searchRunId: number, p: RawSearchPeriodogram, maxPoints = MAX_STORED_PERIODOGRAM_POINTS): SearchPeriodogramRow {
+  if (p.power.length !== p.grid.count) throw new RangeError(`encodeSearchPeriodogram: ${p.power.length} powers for a grid of ${p.grid.count}`);
+  const k = Math.max(1, Math.ceil(p.grid.count / maxPoints));
+  const power = k === 1 ? p.power : maxPool(p.power, k);
   return {
     search_run_id: searchRunId,
     round: p.round,
     min_frequency_per_day: p.grid.minFrequencyPerDay,
-    step_per_day: p.grid.stepPerDay,
-    count: p.grid.count,
+    step_per_day: p.grid.stepPerDay * k,
+    count: power.length,
+    points_per_bin: k,
     power: encodeFloat64Column(power),
   };
 }
@@ -123,6 +153,7 @@ export function decodeSearchPeriodogram(row: SearchPeriodogramRow): SearchPeriod
   return {
     round: row.round,
     grid: { minFrequencyPerDay: row.min_frequency_per_day, stepPerDay: row.step_per_day, count },
+    pointsPerBin: Number(row.points_per_bin),
     power: Array.from(decodeFloat64Column(row.power, count)),
   };
 }

@@ -8,7 +8,7 @@
  * (api/db/search-runs.ts); tests/worker/search-run.test.ts runs the real job.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { SearchCandidate, SearchResult } from '../../api/contracts/search-runs';
+import { MAX_STORED_PERIODOGRAM_POINTS, type SearchCandidate, type SearchResult } from '../../api/contracts/search-runs';
 import { encodeSearchPeriodogram } from '../../api/db/search-runs';
 import { readModelFile } from '../../worker/timing/model/read-model-file';
 import { writeModelFile } from '../../worker/timing/model/write-model-file';
@@ -281,7 +281,31 @@ describe('reading search runs', () => {
 
     const res = await viewer.agent.get(`/api/search-runs/${runId}/periodograms`).expect(200);
     expect(res.body.data.searchRunId).toBe(runId);
-    expect(res.body.data.rounds).toEqual(rounds.map((r) => ({ round: r.round, grid: r.grid, power: Array.from(r.power) })));
+    expect(res.body.data.rounds).toEqual(rounds.map((r) => ({ round: r.round, grid: r.grid, pointsPerBin: 1, power: Array.from(r.power) })));
+  });
+
+  it('keeps a periodogram longer than the storage limit max-pooled, so its peak keeps its height and bin', async () => {
+    const count = 2 * MAX_STORED_PERIODOGRAM_POINTS + 1; // → bins of 3 grid points
+    const power = Float64Array.from({ length: count }, (_, k) => 0.01 * Math.abs(Math.sin(k)));
+    const spike = 123_457;
+    power[spike] = 0.93;
+    const grid = { minFrequencyPerDay: 0.001, stepPerDay: 1e-5, count };
+    const id = (await startSearch({ revisionId, minPeriodDays: 5.5 })).body.data.searchRun.id;
+    await markSucceeded(id, searchResult(true));
+    await t.knex('search_periodograms').insert(encodeSearchPeriodogram(id, { round: 1, grid, power }));
+
+    const [round] = (await viewer.agent.get(`/api/search-runs/${id}/periodograms`).expect(200)).body.data.rounds;
+    expect(round.pointsPerBin).toBe(3);
+    expect(round.grid).toMatchObject({ minFrequencyPerDay: 0.001, count: Math.ceil(count / 3) });
+    expect(round.grid.stepPerDay).toBeCloseTo(3e-5, 15);
+    expect(round.power).toHaveLength(round.grid.count);
+    const best = round.power.indexOf(Math.max(...round.power));
+    expect(best).toBe(Math.floor(spike / 3));
+    expect(round.power[best]).toBe(0.93);
+    // every bin is the highest of its three grid powers
+    for (const b of [0, 1, 5000, round.grid.count - 1]) {
+      expect(round.power[b]).toBe(Math.max(...power.subarray(3 * b, Math.min(count, 3 * b + 3))));
+    }
   });
 
   it('answers 409 no_periodograms for a run that has not succeeded', async () => {
