@@ -8,7 +8,7 @@ function grid(count: number, spikeAt: number) {
   const minFrequencyPerDay = 1 / 2000;
   const stepPerDay = 1e-4;
   const power = Array.from({ length: count }, (_, k) => (k === spikeAt ? 0.9 : 0.01 + 0.02 * Math.abs(Math.sin(k))));
-  return { round: 1, grid: { minFrequencyPerDay, stepPerDay, count }, power };
+  return { round: 1, grid: { minFrequencyPerDay, stepPerDay, count }, pointsPerBin: 1, power };
 }
 
 describe('periodogram series', () => {
@@ -34,7 +34,8 @@ describe('periodogram series', () => {
   });
 
   it('leaves out a zero frequency (no period) and a power array shorter than the grid', () => {
-    const s = periodogramSeries({ round: 1, grid: { minFrequencyPerDay: 0, stepPerDay: 0.01, count: 5 }, power: [0.1, 0.2, 0.3] });
+    const short = { round: 1, grid: { minFrequencyPerDay: 0, stepPerDay: 0.01, count: 5 }, pointsPerBin: 1, power: [0.1, 0.2, 0.3] };
+    const s = periodogramSeries(short);
     expect(s.power).toEqual([0.2, 0.3]);
     expect(s.periodDays).toEqual([100, 50]);
   });

@@ -142,7 +142,7 @@ function periodogramOf(p: (typeof PEAKS)[number]) {
   const stepPerDay = (1 / p.periodDays) / 20;
   const minFrequencyPerDay = stepPerDay; // index 19 is the peak: f = 20·Δf = 1/period
   const power = Array.from({ length: count }, (_, k) => (k === 19 ? p.power : p.power * 0.2 * ((k % 5) / 5)));
-  return { round: p.round, grid: { minFrequencyPerDay, stepPerDay, count }, power };
+  return { round: p.round, grid: { minFrequencyPerDay, stepPerDay, count }, pointsPerBin: p.round === 1 ? 25 : 1, power };
 }
 const PERIODOGRAMS = { searchRunId: 41, rounds: PEAKS.map(periodogramOf) };
 
@@ -234,7 +234,10 @@ describe('search run page', () => {
     expect(plots[0].getAttribute('data-traces')).toBe('Power:40|Chosen peak (FAP 2.0e-9):1');
     expect(plots[0].getAttribute('data-peak')).toBe('41.3,0.62');
     expect(plots[0].getAttribute('data-shapes')).toBe('0'); // the API sends no threshold power
+    expect(screen.getByRole('figure', { name: 'Periodogram of round 1' }).textContent).toMatch(/each point the highest power of 25 neighbouring frequencies/);
+    expect(screen.getByRole('figure', { name: 'Periodogram of round 2' }).textContent).not.toMatch(/neighbouring frequencies/);
 
+    expect(screen.getByText(/Produced with ephemeris DE405, clock chain observatory clock corrections → UTC, time scale TDB via ERFA dtdb \(topocentric\) \(pulsekeeper-engine\/0\.1\.0\)/)).toBeTruthy();
     // Settings that produced it.
     const engine = screen.getByLabelText('Engine settings');
     expect(within(engine).getByText('DE405')).toBeTruthy();

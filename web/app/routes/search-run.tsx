@@ -17,16 +17,16 @@ import { formatDurationMs, formatReducedChi2, formatRmsUs } from '../../features
 import { useCancelSearchRun } from '../../features/search-runs/api/cancel-search-run';
 import { isFinalSearchStatus, searchRunQueryOptions, useSearchRun, type SearchResult, type SearchRun } from '../../features/search-runs/api/get-search-run';
 import { CandidatesTable } from '../../features/search-runs/components/candidates-table';
-import { FinalFitParameters } from '../../features/search-runs/components/final-fit-parameters';
 import { DerivedMassesTable } from '../../features/search-runs/components/derived-masses-table';
+import { FinalFitParameters } from '../../features/search-runs/components/final-fit-parameters';
 import { SaveSearchRevisionPanel } from '../../features/search-runs/components/save-search-revision-panel';
 import { SearchRounds } from '../../features/search-runs/components/search-rounds';
 import { SearchSettingsList } from '../../features/search-runs/components/search-settings-list';
 import { SearchStatusBadge } from '../../features/search-runs/components/search-status-badge';
 import { SearchWarnings } from '../../features/search-runs/components/search-warnings';
 import { isAccepted } from '../../features/search-runs/lib/candidate-elements';
-import { stopReasonText } from '../../features/search-runs/lib/stop-reasons';
 import { SEARCH_PERMISSIONS } from '../../features/search-runs/lib/search-permissions';
+import { stopReasonText } from '../../features/search-runs/lib/stop-reasons';
 import { hasPermission, requireSession } from '../session';
 
 export const clientLoader =
@@ -94,6 +94,7 @@ function Outcome({ run, result }: { run: SearchRun; result: SearchResult }) {
   const found = result.companionsFound;
   const rejected = result.candidates.filter((c) => !isAccepted(c)).length;
   const fit = result.finalFit;
+  const settings: Record<string, string | undefined> = { ...run.settings, ...result.engineSettings };
   return (
     <div className="flex flex-col gap-4">
       <p className="text-base text-night-100">
@@ -114,6 +115,10 @@ function Outcome({ run, result }: { run: SearchRun; result: SearchResult }) {
         </Fact>
         <Fact label="Duration">{formatDurationMs(run.durationMs)}</Fact>
       </dl>
+      <p className="text-xs text-night-400">
+        Produced with ephemeris {settings.ephemeris ?? '—'}, clock chain {settings.clock ?? '—'}, time scale {settings.timeScale ?? '—'}
+        {settings.engineVersion ? ` (${settings.engineVersion})` : ''}; all settings at the foot of the page.
+      </p>
     </div>
   );
 }

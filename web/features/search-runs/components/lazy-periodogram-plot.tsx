@@ -19,6 +19,8 @@ export function RoundPeriodogram({
   falseAlarmThreshold: number;
 }) {
   const series = useMemo(() => periodogramSeries(periodogram), [periodogram]);
+  // Stored periodograms longer than the server's limit are max-pooled; `pointsPerBin` says by how much (1 or absent: not pooled).
+  const binned = (periodogram as { pointsPerBin?: number }).pointsPerBin ?? 1;
   return (
     <figure aria-label={`Periodogram of round ${periodogram.round}`}>
       <Suspense fallback={<LoadingPanel label="Loading the plot…" />}>
@@ -26,7 +28,9 @@ export function RoundPeriodogram({
       </Suspense>
       <figcaption className="mt-2 text-xs text-night-400">
         Generalized Lomb–Scargle power of the residuals against trial period (logarithmic axis), {periodogram.grid.count.toLocaleString('en-GB')}{' '}
-        frequencies{series.thinned ? ', thinned for drawing to the extremes of each stretch' : ''}.
+        points
+        {binned > 1 ? ` (each point the highest power of ${binned} neighbouring frequencies the engine evaluated)` : ''}
+        {series.thinned ? ', thinned for drawing to the extremes of each stretch' : ''}.
         {peak ? ` The diamond marks the chosen peak at ${formatPeriodDays(peak.periodDays)} (FAP ${formatFap(peak.falseAlarmProbability)}).` : ''} The power
         level of the false-alarm threshold is not sent by the server, so no threshold line is drawn; compare the peak’s FAP with the threshold instead.
       </figcaption>
