@@ -98,11 +98,14 @@ function WithdrawConfirm({ revision, onDone }: { revision: Revision; onDone: () 
  * released one. Render it only for users holding models:release; the API checks again.
  */
 export function ReleaseControls({ revision }: { revision: Revision }) {
-  const [open, setOpen] = useState(false);
-  const close = () => setOpen(false);
-  if (open) return revision.releasedAt ? <WithdrawConfirm revision={revision} onDone={close} /> : <ReleaseForm revision={revision} onDone={close} />;
+  // Fixed when opened: the refetched revision turns released before the form's own success callback
+  // runs, and swapping the form out then would drop that callback (and leave the panel open).
+  const [mode, setMode] = useState<'release' | 'withdraw' | null>(null);
+  const close = () => setMode(null);
+  if (mode === 'withdraw') return <WithdrawConfirm revision={revision} onDone={close} />;
+  if (mode === 'release') return <ReleaseForm revision={revision} onDone={close} />;
   return (
-    <Button variant="ghost" size="sm" className="mt-1 h-7 px-2 text-xs" onClick={() => setOpen(true)}>
+    <Button variant="ghost" size="sm" className="mt-1 h-7 px-2 text-xs" onClick={() => setMode(revision.releasedAt ? 'withdraw' : 'release')}>
       {revision.releasedAt ? `Withdraw release of #${revision.id}…` : `Release #${revision.id}…`}
     </Button>
   );
