@@ -76,7 +76,7 @@ const SPIN = ['spin.frequency_hz', 'spin.frequency_derivatives[0]', 'phase_offse
 const WITH_POSITION = ['spin.frequency_hz', 'spin.frequency_derivatives[0]', 'astrometry.ra_hms', 'astrometry.dec_dms', 'phase_offset_turns'];
 
 function comparison(overrides: Partial<FitComparison> = {}, order: [number, number] = [21, 22]): FitComparison {
-  const runs = { 21: comparedRun(21, 1, 1400, SPIN), 22: comparedRun(22, 2, 1390, WITH_POSITION, true) };
+  const runs: Record<number, ComparedRun> = { 21: comparedRun(21, 1, 1400, SPIN), 22: comparedRun(22, 2, 1390, WITH_POSITION, true) };
   return {
     pulsarId: 4,
     runs: order.map((id) => runs[id]),
@@ -212,12 +212,13 @@ describe('fit comparison page', () => {
     expect(within(ra).queryByText('(more than 3σ)')).toBeNull();
   });
 
-  it('draws the runs’ residuals stacked: WebGL traces, one y axis per run, one shared x axis, one legend entry per backend', async () => {
+  it('draws the runs’ residuals stacked: one y axis per run, one shared x axis, one legend entry per backend', async () => {
     mockApi(comparisonRoutes(VIEWER));
     renderApp('/pulsars/4/compare?runs=21,22');
     const plot = await screen.findByTestId('plotly');
-    // Backends sorted over both runs: wide-1 is styled and listed first in every panel.
-    expect(plot.getAttribute('data-traces')).toBe('scattergl:x/y:wide-1:3:legend,scattergl:x/y2:wide-1:2:-,scattergl:x/y2:wide-2:2:legend');
+    // Backends sorted over both runs: wide-1 is styled and listed first in every panel. Seven
+    // points and no WebGL in jsdom: SVG markers (WebGL cases: fit-comparison-traces.test.tsx).
+    expect(plot.getAttribute('data-traces')).toBe('scatter:x/y:wide-1:3:legend,scatter:x/y2:wide-1:2:-,scatter:x/y2:wide-2:2:legend');
     expect(plot.getAttribute('data-axes')).toBe('xaxis,yaxis,yaxis2');
   });
 

@@ -19,6 +19,24 @@ function WarningItem({ warning }: { warning: ComparisonWarning }) {
   );
 }
 
+/** Each run's own fit warnings, which the `fit-warnings` entry only points to. */
+function RunWarnings({ comparison }: { comparison: FitComparison }) {
+  const withWarnings = comparison.runs.filter((r) => r.warnings.length > 0);
+  if (withWarnings.length === 0) return null;
+  return (
+    <div className="mt-2">
+      <p className="font-semibold">Warnings of the fits</p>
+      <ul className="mt-1 list-disc space-y-1 pl-5">
+        {withWarnings.map((run) => (
+          <li key={run.fitRunId}>
+            Run #{run.fitRunId}: {run.warnings.join('; ')}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
 /**
  * The API's warnings at the top of the comparison: an alert saying χ², AIC, BIC and F-tests are not
  * comparable when the runs fitted other TOAs or used other settings, then every warning in full.
@@ -48,6 +66,7 @@ export function ComparisonWarnings({ comparison }: { comparison: FitComparison }
           ))}
         </ul>
       ) : null}
+      <RunWarnings comparison={comparison} />
     </Alert>
   );
 }

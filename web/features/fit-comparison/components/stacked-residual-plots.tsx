@@ -1,7 +1,7 @@
 // Imports Plotly: load it only through stacked-residuals-panel.tsx (React.lazy), so Plotly stays in its own chunk.
 import Plotly from 'plotly.js-dist-min';
 import createPlotlyComponent from 'react-plotly.js/factory';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { stackedResidualTraces, yAxisName, type StackedRun } from '../lib/stacked-residual-traces';
 
 const Plot = createPlotlyComponent(Plotly);
@@ -13,9 +13,21 @@ const ZERO_LINE_COLOUR = '#58618a';
 const PANEL_HEIGHT_PX = 200;
 const PANEL_GAP = 0.04; // of the plot height, between panels
 
+/** True when the browser can give a WebGL context (no GPU, or a headless browser, often cannot). */
+function browserHasWebGl(): boolean {
+  if (typeof WebGLRenderingContext === 'undefined') return false;
+  try {
+    const canvas = document.createElement('canvas');
+    return Boolean(canvas.getContext('webgl2') ?? canvas.getContext('webgl'));
+  } catch {
+    return false;
+  }
+}
+
 /** The runs' residuals in panels stacked top to bottom, sharing one MJD axis. */
 export default function StackedResidualPlots({ runs }: { runs: StackedRun[] }) {
-  const data = useMemo(() => stackedResidualTraces(runs), [runs]);
+  const [webgl] = useState(browserHasWebGl);
+  const data = useMemo(() => stackedResidualTraces(runs, webgl), [runs, webgl]);
   const layout = useMemo(() => {
     const n = runs.length;
     const share = (1 - PANEL_GAP * (n - 1)) / n;

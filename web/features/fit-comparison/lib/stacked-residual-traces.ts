@@ -1,6 +1,6 @@
 import type { ResidualColumns } from '../../residual-plot/api/get-residuals';
 import { backendStyle } from '../../residual-plot/lib/backend-styles';
-import { residualTraces, type ResidualTrace } from '../../residual-plot/lib/residual-traces';
+import { residualTraces, WEBGL_POINT_THRESHOLD, type ResidualTrace } from '../../residual-plot/lib/residual-traces';
 
 /** One run's residuals and the label of its panel. */
 export interface StackedRun {
@@ -9,8 +9,7 @@ export interface StackedRun {
   residuals: ResidualColumns;
 }
 
-export type StackedTrace = Omit<ResidualTrace, 'type'> & {
-  type: 'scattergl';
+export type StackedTrace = ResidualTrace & {
   xaxis: 'x';
   yaxis: string;
   legendgroup: string;
@@ -21,15 +20,22 @@ export type StackedTrace = Omit<ResidualTrace, 'type'> & {
 export const yAxisName = (index: number) => (index === 0 ? 'y' : `y${index + 1}`);
 
 /**
- * WebGL traces of several runs' residuals, one panel (y axis) per run and one x axis (MJD) for all,
+ * Traces of several runs' residuals, one panel (y axis) per run and one x axis (MJD) for all,
  * so zooming in time moves every panel together. A backend keeps the same colour and symbol in
  * every panel (styles by the sorted union of backends) and has one legend entry that hides or shows
  * it everywhere.
  *
- * @param runs  the runs from top to bottom
- * @returns     traces with `yaxis` set per panel
+ * @param runs   the runs from top to bottom
+ * @param webgl  whether the browser offers WebGL (Note 1)
+ * @returns      traces with `yaxis` set per panel
+ *
+ * Notes: 1. WebGL (scattergl) draws every panel once all runs together pass WEBGL_POINT_THRESHOLD,
+ *           as in the single residual plot; below it, or without WebGL (headless or GPU-less
+ *           browsers), SVG markers draw them, which is fast enough at that size.
  */
-export function stackedResidualTraces(runs: readonly StackedRun[]): StackedTrace[] {
+export function stackedResidualTraces(runs: readonly StackedRun[], webgl = true): StackedTrace[] {
+  const total = runs.reduce((sum, run) => sum + run.residuals.mjd.length, 0);
+  const type = webgl && total > WEBGL_POINT_THRESHOLD ? 'scattergl' : 'scatter'; // Note 1
   const perRun = runs.map((run) => residualTraces(run.residuals));
   const names = [...new Set(perRun.flatMap((traces) => traces.map((t) => t.name)))].sort((a, b) => a.localeCompare(b));
   const seen = new Set<string>();
@@ -40,7 +46,7 @@ export function stackedResidualTraces(runs: readonly StackedRun[]): StackedTrace
       seen.add(trace.name);
       return {
         ...trace,
-        type: 'scattergl' as const,
+        type,
         xaxis: 'x' as const,
         yaxis: yAxisName(panel),
         legendgroup: trace.name,
