@@ -175,6 +175,7 @@ describe('the residual explorer in the browser', () => {
     const rmsOn = await page.getByTestId('summary-rms').textContent();
     const excludedBefore = number(await page.getByTestId('summary-excluded').textContent());
     const usedBefore = number(await page.getByTestId('summary-used').textContent());
+    await page.screenshot({ path: artifactPath('explorer-0-viewport-1280x800.png') }); // what fits on a 1280×800 screen
     await page.screenshot({ path: artifactPath('explorer-1-fit-with-companions.png'), fullPage: true });
 
     // A companion off: its delay shows in the residuals and the RMS rises (x ≥ 42 µs against ~1 µs).

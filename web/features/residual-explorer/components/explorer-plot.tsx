@@ -115,7 +115,7 @@ export default function ExplorerPlot({ traces, xTitle, yTitle, revision, onSelec
         return !onLegendIsolate;
       }}
       useResizeHandler
-      style={{ width: '100%' }}
+      style={{ width: '100%', height }} // an explicit height: a responsive Plotly redraw can otherwise collapse to 0
       className="w-full"
     />
   );

@@ -311,7 +311,8 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
               xTitle={X_AXIS_TITLES[choices.x]}
             />
           </Card>
-          <Card aria-labelledby="periodogram-title">
+          {/* The min height guards against a responsive Plotly redraw collapsing the periodogram plot to 0 px. */}
+          <Card aria-labelledby="periodogram-title" className="[&_figure_.js-plotly-plot]:min-h-[280px]">
             <CardTitle>
               <span id="periodogram-title">Periodogram of the shown residuals</span>
             </CardTitle>
@@ -335,16 +336,6 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
           <Card className="p-4">
             <CompanionSwitches model={editedModel} onModelChange={setEditedModel} previewMs={shown.previewMs} />
           </Card>
-          <Card className="p-4" aria-label="Parameters">
-            <ParameterPanel
-              pulsarId={Number(pulsarId)}
-              explorer={table}
-              editedModel={editedModel}
-              onEditedModelChange={setEditedModel}
-              canSave={canEditModels && canRunFits}
-              onFitQueued={(run) => setQueuedRunId(run.id)}
-            />
-          </Card>
           {canRunFits ? (
             <Card className="p-4">
               <RefitPanel pulsarId={pulsarId} revisionId={table.revisionId} queuedRunId={queuedRunId} onQueued={setQueuedRunId} />
@@ -361,6 +352,16 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
                 )
               }
               onFittedModel={() => downloadText(`${baseName}_fitted-model.json`, fittedModelJson(table), 'application/json')}
+            />
+          </Card>
+          <Card className="p-4" aria-label="Parameters">
+            <ParameterPanel
+              pulsarId={Number(pulsarId)}
+              explorer={table}
+              editedModel={editedModel}
+              onEditedModelChange={setEditedModel}
+              canSave={canEditModels && canRunFits}
+              onFitQueued={(run) => setQueuedRunId(run.id)}
             />
           </Card>
         </aside>
