@@ -18,6 +18,12 @@ export const SEARCH_RUN_STATUSES = ['queued', 'running', 'succeeded', 'failed', 
 export type SearchRunStatus = (typeof SEARCH_RUN_STATUSES)[number];
 export const FINAL_SEARCH_RUN_STATUSES: readonly SearchRunStatus[] = ['succeeded', 'failed', 'cancelled'];
 
+/**
+ * Most trial frequencies a search may ask for per round: 5 (the grid's oversampling) × span × (1/min − 1/max period).
+ * A request beyond it is refused up front (400 on minPeriodDays) instead of running for hours.
+ */
+export const MAX_SEARCH_FREQUENCIES = 2_000_000;
+
 /** Defaults of the search options (docs/formats.md §4 `search`). */
 export const SEARCH_DEFAULTS = {
   maxCompanions: 3,

@@ -8,11 +8,11 @@
  * (api/db/search-runs.ts); tests/worker/search-run.test.ts runs the real job.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { MAX_STORED_PERIODOGRAM_POINTS, type SearchCandidate, type SearchResult } from '../../api/contracts/search-runs';
+import { MAX_SEARCH_FREQUENCIES, MAX_STORED_PERIODOGRAM_POINTS, type SearchCandidate, type SearchResult } from '../../api/contracts/search-runs';
 import { encodeSearchPeriodogram } from '../../api/db/search-runs';
 import { readModelFile } from '../../worker/timing/model/read-model-file';
 import { writeModelFile } from '../../worker/timing/model/write-model-file';
-import { demoModelJson } from '../worker/fit-run-fixtures';
+import { createTestObservatory, demoModelJson, simulatedCsv, storeCsv } from '../worker/fit-run-fixtures';
 import { signedInClient, type Client } from './helpers/agents';
 import { countRows, createPulsarRow, createUser } from './helpers/factories';
 import { buildTestApp, type TestApp } from './helpers/test-app';
@@ -188,6 +188,30 @@ describe('starting a search', () => {
     expect((await startSearch({ revisionId: 2147480000 })).body.error.code).toBe('not_found');
     expect((await startSearch({ revisionId }, 2147480000)).status).toBe(404);
     expect(await countRows(t.knex, 'search_runs')).toBe(runsBefore);
+  });
+
+  it('refuses a minimum period whose grid would exceed the frequency limit over the TOAs’ span (400, nothing stored)', async () => {
+    const observatory = await createTestObservatory(t.knex);
+    const withToas = await createPulsarRow(t.knex);
+    const model = demoModelJson(withToas.name);
+    await storeCsv(t.knex, withToas.id, simulatedCsv(model, observatory, 20));
+    const span = await t.knex('toas').where({ pulsar_id: withToas.id }).first(t.knex.raw('MAX(mjd_day) - MIN(mjd_day) + 1 AS days'));
+    const spanDays = Number(span.days);
+    const rev = (await analyst.agent.post(`/api/pulsars/${withToas.id}/revisions`).set('x-csrf-token', analyst.csrf).send({ model, message: 'start' }).expect(201)).body.data.id;
+    const runsBefore = await countRows(t.knex, 'search_runs');
+    // 5 × span × (1/0.001 d − 1/span) frequencies: millions over a span of ~3 years
+    const res = await startSearch({ revisionId: rev, minPeriodDays: 0.001 }, withToas.id);
+    expect(res.status).toBe(400);
+    expect(res.body.error.details[0].path).toEqual(['minPeriodDays']);
+    const said = /would hold ([\d,]+) frequencies over the (\d+)-day span \(limit 2,000,000\); choose at least ([\d.e-]+) days/.exec(res.body.error.message);
+    expect(said, res.body.error.message).not.toBeNull();
+    expect(Number(said![2])).toBe(spanDays);
+    expect(Number(said![1].replaceAll(',', ''))).toBeGreaterThan(MAX_SEARCH_FREQUENCIES);
+    expect(await countRows(t.knex, 'search_runs')).toBe(runsBefore);
+    // The suggested shortest period is the limit: a little below is refused, a little above accepted.
+    const shortest = Number(said![3]);
+    expect((await startSearch({ revisionId: rev, minPeriodDays: shortest * 0.99 }, withToas.id)).status).toBe(400);
+    expect((await startSearch({ revisionId: rev, minPeriodDays: shortest * 1.01 }, withToas.id)).status).toBe(202);
   });
 
   it('is refused to a viewer (403)', async () => {
