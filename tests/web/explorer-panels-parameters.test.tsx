@@ -170,6 +170,17 @@ describe('ParameterPanel', () => {
     expect(screen.queryByText(/^edited — was/)).toBeNull();
   });
 
+  it('keeps optional values the fit left unset under "More values", editable in place', async () => {
+    mockApi({ 'GET /api/fit-runs/:id': ok(FIT_RUN) });
+    const { user, latest } = renderPanel();
+    const companion = screen.getByRole('group', { name: 'Companion b' });
+    await user.click(within(companion).getByText(/^More values \(3, not set in the fit\)/));
+    await user.type(input('Period derivative, companion b (dimensionless)'), '-2.5e-12');
+    const edited = (latest().companions as Record<string, unknown>[])[0];
+    expect(edited.period_derivative).toBe(-2.5e-12);
+    expect(input('Period derivative, companion b (dimensionless)').value).toBe('-2.5e-12');
+  });
+
   it('switches solve-for paths on and off', async () => {
     mockApi({ 'GET /api/fit-runs/:id': ok(FIT_RUN) });
     const { user, latest } = renderPanel();

@@ -67,10 +67,10 @@ export function DelayComponentsTable({ rows }: { rows: readonly DelayComponentsR
         </caption>
         <THead>
           <tr>
-            <Th scope="col">TOA</Th>
-            <Th scope="col">MJD</Th>
+            <Th scope="col" className="px-2">TOA</Th>
+            <Th scope="col" className="px-2">MJD</Th>
             {COLUMNS.map((c) => (
-              <Th key={c.key} scope="col" className="text-right">
+              <Th key={c.key} scope="col" className="px-2 text-right">
                 <span className="whitespace-nowrap normal-case">
                   <span aria-label={c.sign === '+' ? 'added' : 'subtracted'} className="mr-1 font-mono text-night-400">
                     {c.sign}
@@ -84,10 +84,10 @@ export function DelayComponentsTable({ rows }: { rows: readonly DelayComponentsR
         <TBody>
           {shown.map((r) => (
             <Tr key={r.toaId}>
-              <Td className="font-mono text-night-300">#{r.toaId}</Td>
-              <Td className="whitespace-nowrap font-mono tabular-nums">{formatMjd(r.mjd, 10)}</Td>
+              <Td className="px-2 font-mono text-night-300">#{r.toaId}</Td>
+              <Td className="whitespace-nowrap px-2 font-mono tabular-nums">{formatMjd(r.mjd, 10)}</Td>
               {COLUMNS.map((c) => (
-                <Td key={c.key} className="whitespace-nowrap text-right font-mono tabular-nums">
+                <Td key={c.key} className="whitespace-nowrap px-2 text-right font-mono tabular-nums">
                   {formatDelay(r[c.key], units[c.key])}
                 </Td>
               ))}

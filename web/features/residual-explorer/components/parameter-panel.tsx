@@ -282,6 +282,29 @@ function GroupSection({
   onRemoveCompanion(name: string): void;
 }) {
   const isCompanion = group.id.startsWith('companion:');
+  // Optional values the fitted model leaves unset and unsolved sit behind "More values", keeping the
+  // column short. Decided from a fixed reference, so a row never moves (and loses focus) while typed in.
+  // A companion new in the edited model (seeded) is judged by its values when it appeared.
+  const [reference] = useState(() => (isNew ? editedModel : baseline));
+  const referenceSolveFor = solveForOf(reference);
+  const unset = (spec: ParameterSpec) => spec.optional && textAt(reference, spec.path) === '' && !referenceSolveFor.includes(spec.path);
+  const main = group.parameters.filter((spec) => !unset(spec));
+  const more = group.parameters.filter(unset);
+  const row = (spec: ParameterSpec) => (
+    <ParameterRow
+      key={spec.path}
+      spec={spec}
+      suffix={isCompanion ? `, companion ${group.item}` : ''}
+      text={textAt(editedModel, spec.path)}
+      original={textAt(baseline, spec.path)}
+      isNewItem={isNew}
+      fitted={fitted[spec.path]}
+      solve={solveFor.has(spec.path)}
+      onEdit={(text) => onEdit(spec, text)}
+      onReset={() => onReset(spec)}
+      onSolve={(solve) => onSolve(spec, solve)}
+    />
+  );
   return (
     <details open className="rounded-lg border border-night-700 bg-night-900/60" aria-label={group.title}>
       <summary className="cursor-pointer rounded-lg px-3 py-2 text-sm font-semibold text-night-100 focus-ring">
@@ -290,21 +313,15 @@ function GroupSection({
       </summary>
       <div className="flex flex-col divide-y divide-night-800 px-3 pb-2">
         {group.parameters.length === 0 ? <p className="py-2 text-xs text-night-400">No values this screen can edit for this kind.</p> : null}
-        {group.parameters.map((spec) => (
-          <ParameterRow
-            key={spec.path}
-            spec={spec}
-            suffix={isCompanion ? `, companion ${group.item}` : ''}
-            text={textAt(editedModel, spec.path)}
-            original={textAt(baseline, spec.path)}
-            isNewItem={isNew}
-            fitted={fitted[spec.path]}
-            solve={solveFor.has(spec.path)}
-            onEdit={(text) => onEdit(spec, text)}
-            onReset={() => onReset(spec)}
-            onSolve={(solve) => onSolve(spec, solve)}
-          />
-        ))}
+        {main.map(row)}
+        {more.length > 0 ? (
+          <details className="py-2" open={more.some((spec) => textAt(editedModel, spec.path) !== '' || solveFor.has(spec.path)) || undefined}>
+            <summary className="cursor-pointer rounded text-xs font-medium text-night-300 focus-ring">
+              More values ({more.length}, not set in the fit): {more.map((spec) => spec.label.toLowerCase()).join(', ')}
+            </summary>
+            <div className="flex flex-col divide-y divide-night-800">{more.map(row)}</div>
+          </details>
+        ) : null}
         {isCompanion && group.item !== undefined ? (
           <div className="pt-2">
             <Button variant="ghost" size="sm" onClick={() => onRemoveCompanion(group.item!)}>

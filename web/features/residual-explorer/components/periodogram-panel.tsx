@@ -158,7 +158,7 @@ export function PeriodogramPanel({ tDays, residualUs, uncertaintyUs, referenceMj
               <THead>
                 <tr>
                   <Th scope="col">#</Th>
-                  <Th scope="col" className="text-right">Period (d)</Th>
+                  <Th scope="col" className="text-right">Period <span className="normal-case">(d)</span></Th>
                   <Th scope="col" className="text-right">Power</Th>
                   <Th scope="col" className="text-right">False-alarm probability</Th>
                   <Th scope="col">Notes</Th>
