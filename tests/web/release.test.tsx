@@ -91,6 +91,7 @@ describe('releasing a revision', () => {
     });
     expect(newest.textContent).toContain('Released 1 Dec 2026, 14:00 UTC by Lee Lead: “ready for the campaign”');
     expect(within(newest).queryByRole('form')).toBeNull();
+    expect(within(newest).queryByRole('group', { name: /Withdraw the release/ })).toBeNull(); // the panel closed, not swapped
     expect(within(newest).getByRole('button', { name: 'Withdraw release of #9…' })).toBeTruthy();
   });
 
