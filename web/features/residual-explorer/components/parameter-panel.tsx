@@ -317,7 +317,7 @@ function GroupSection({
         {more.length > 0 ? (
           <details className="py-2" open={more.some((spec) => textAt(editedModel, spec.path) !== '' || solveFor.has(spec.path)) || undefined}>
             <summary className="cursor-pointer rounded text-xs font-medium text-night-300 focus-ring">
-              More values ({more.length}, not set in the fit): {more.map((spec) => spec.label.toLowerCase()).join(', ')}
+              More values ({more.length}, not set in the fit): {more.map((spec) => spec.label).join(', ')}
             </summary>
             <div className="flex flex-col divide-y divide-night-800">{more.map(row)}</div>
           </details>
@@ -372,7 +372,7 @@ function ParameterRow({
                 fitted ± {formatUncertainty(fitted.uncertainty)} {fitted.unit}
               </span>
             ) : (
-              <span>{spec.solvable ? 'not fitted in this run' : 'setting, not fitted'}</span>
+              <span>{!spec.solvable ? 'setting, not fitted' : isNewItem ? 'new: fit it to get an uncertainty' : 'not fitted in this run'}</span>
             )}
             {changed ? (
               <span className="ml-2 text-ember-200">
