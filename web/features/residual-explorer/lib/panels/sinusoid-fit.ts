@@ -58,7 +58,7 @@ export function fitSinusoidAtFrequency(
   const centreDays = sumWt / sumW;
   const omega = 2 * Math.PI * freqPerDay;
   // Normal matrix Σ w·g·gᵀ and right side r = Σ w·g·y for the basis g = (1, cos ωt, sin ωt).
-  let sw = 0, sc = 0, ss = 0, scc = 0, scs = 0, sss = 0, ry = 0, rc = 0, rs = 0; // prettier-ignore
+  let sw = 0, sc = 0, ss = 0, scc = 0, scs = 0, sss = 0, ry = 0, rc = 0, rs = 0;
   for (let i = 0; i < n; i++) {
     const w = 1 / (sigma[i] * sigma[i]);
     const phase = omega * (tDays[i] - centreDays);
