@@ -7,6 +7,7 @@ import { Card, CardTitle } from '../../../components/card';
 import { LoadingPanel } from '../../../components/query-state';
 import type { ExplorerData } from '../api/get-explorer-data';
 import { useChangeExclusions, type ExclusionChange } from '../api/change-exclusions';
+import { activeExcludedToaIds } from '../api/get-exclusions';
 import { barycentricDaysOf, companionDelayCurve } from '../lib/companion-curve';
 import { downloadText, fittedModelJson, residualsCsv } from '../lib/explorer-exports';
 import { groupToas } from '../lib/explorer-groups';
@@ -99,8 +100,7 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
       table.excluded.forEach((e, i) => (flags[i] = e ? 1 : 0));
       return flags;
     }
-    const ids = new Set<number>();
-    for (const entry of exclusions) if (entry.restoredAt === null) ids.add(entry.toaId);
+    const ids = activeExcludedToaIds(exclusions);
     table.toaId.forEach((id, i) => (flags[i] = ids.has(id) ? 1 : 0));
     return flags;
   }, [exclusions, table]);
