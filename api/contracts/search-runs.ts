@@ -112,6 +112,7 @@ export interface SearchPeak {
   falseAlarmProbability: number;
   significant: boolean; // falseAlarmProbability < the run's falseAlarmThreshold
   aliasWarnings: string[]; // each starts with a stable code and a colon (one-year:, half-year:, cadence:, …)
+  thresholdPower?: number; // power at which this round's Baluev FAP equals falseAlarmThreshold (absent in runs stored before it was kept)
 }
 
 /** Physics derived from a candidate's elements (mass function, minimum mass, separation). */
@@ -233,6 +234,7 @@ export interface SearchPeriodogram {
   grid: { minFrequencyPerDay: number; stepPerDay: number; count: number };
   pointsPerBin: number;
   power: number[]; // count entries
+  thresholdPower: number | null; // power at which the round's Baluev FAP equals the run's falseAlarmThreshold (null: run stored before it was kept)
 }
 
 /** Longest periodogram stored point for point (0.8 MB of Float64 per round). */
@@ -241,6 +243,7 @@ export const MAX_STORED_PERIODOGRAM_POINTS = 100_000;
 /** GET /api/search-runs/:id/periodograms. */
 export interface SearchPeriodograms {
   searchRunId: number;
+  falseAlarmThreshold: number; // the run's threshold, the level thresholdPower stands for
   rounds: SearchPeriodogram[];
 }
 
