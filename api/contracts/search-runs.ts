@@ -234,7 +234,7 @@ export interface SearchPeriodogram {
   grid: { minFrequencyPerDay: number; stepPerDay: number; count: number };
   pointsPerBin: number;
   power: number[]; // count entries
-  thresholdPower: number | null; // power at which the round's Baluev FAP equals the run's falseAlarmThreshold (null: run stored before it was kept)
+  thresholdPower?: number | null; // power at which the round's Baluev FAP equals the run's falseAlarmThreshold (null: run stored before it was kept)
 }
 
 /** Longest periodogram stored point for point (0.8 MB of Float64 per round). */
