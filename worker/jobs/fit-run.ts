@@ -37,7 +37,8 @@ import { fitInputsHash, loadFitSelection, loadStoredMjdTexts } from '../../api/s
 import { parseObservatory } from '../timing/earth/read-observatories';
 import type { FitEngineInput, FitEngineOutput } from './fit-run-engine';
 import { notifyFitRunFinished } from './fit-run-events';
-import { FitThreadError, runFitInThread } from './fit-run-thread';
+import { EngineThreadError } from './engine-thread';
+import { runFitInThread } from './fit-run-thread';
 import { buildExplorerColumns } from './fit-run-explorer-columns';
 
 export interface FitRunDeps {
@@ -138,7 +139,7 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
     output = await thread.result;
   } catch (error) {
     await thread.terminate();
-    if (error instanceof FitThreadError && error.timingInput) throw new UnrecoverableError(error.message);
+    if (error instanceof EngineThreadError && error.timingInput) throw new UnrecoverableError(error.message);
     throw error;
   }
   await report(95, 'storing results');

@@ -34,7 +34,8 @@ import { loadFitSelection } from '../../api/services/fit-runs/fit-inputs';
 import { searchInputsHash } from '../../api/services/search-runs/search-inputs';
 import { parseObservatory } from '../timing/earth/read-observatories';
 import type { SearchEngineInput, SearchEngineOutput } from './search-run-engine';
-import { runSearchInThread, SearchThreadError } from './search-run-thread';
+import { EngineThreadError } from './engine-thread';
+import { runSearchInThread } from './search-run-thread';
 
 export interface SearchRunDeps {
   knex: Knex;
@@ -132,7 +133,7 @@ async function searchAndStore(job: Job, knex: Knex, run: SearchRunRow): Promise<
     output = await thread.result;
   } catch (error) {
     await thread.terminate();
-    if (error instanceof SearchThreadError && error.timingInput) throw new UnrecoverableError(error.message);
+    if (error instanceof EngineThreadError && error.timingInput) throw new UnrecoverableError(error.message);
     throw error;
   }
   await report(96, 'storing results');
