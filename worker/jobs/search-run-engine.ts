@@ -94,9 +94,12 @@ function presentCandidate(model: TimingModel, c: EngineCandidate): SearchCandida
   };
 }
 
+const optionalThreshold = (power: number | undefined): { thresholdPower?: number } => (power !== undefined && Number.isFinite(power) ? { thresholdPower: power } : {});
+
 /** The engine's report as the run stores it. */
 export function presentSearchReport(report: CompanionSearchReport, options: SearchOptions): SearchEngineOutput {
   const { finalFit, settings } = report;
+  const thresholdPowers = new Map(report.periodograms.map((p) => [p.round, p.thresholdPower]));
   const parameters: Record<string, SearchValue> = {};
   for (const [path, p] of Object.entries(finalFit.parameters)) parameters[path] = { value: p.value, uncertainty: p.uncertainty, unit: p.fileUnit };
   const candidates = report.candidates.map((c) => presentCandidate(report.model, c));
@@ -109,6 +112,7 @@ export function presentSearchReport(report: CompanionSearchReport, options: Sear
       falseAlarmProbability: p.falseAlarmProbability,
       significant: p.falseAlarmProbability < options.falseAlarmThreshold,
       aliasWarnings: [...p.aliasWarnings],
+      ...optionalThreshold(thresholdPowers.get(p.round)), // the threshold line, kept in the result JSON
     })),
     candidates,
     companionsFound: candidates.filter((c) => c.status === 'accepted').length,

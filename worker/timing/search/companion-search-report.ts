@@ -67,6 +67,11 @@ export interface SearchPeriodogram {
   frequencyPerDay: Float64Array;
   /** normalised power per grid frequency */
   power: Float64Array;
+  /**
+   * the power at which this round's Baluev 2008 false-alarm probability equals the search's
+   * falseAlarmThreshold (same N, weights and highest frequency as the peak's FAP): the threshold line
+   */
+  thresholdPower: number;
 }
 
 export type SearchCandidateStatus = 'accepted' | 'unstable' | 'degenerate';

@@ -11,6 +11,7 @@ import { fitPreparedArrivals, type TimingFitOptions, type TimingFitResult } from
 import { periodogramGrid } from '../periodogram/frequency-grid';
 import { aliasFlags } from '../periodogram/alias-flags';
 import { LOMB_SCARGLE_FAST_SETTINGS } from '../periodogram/lomb-scargle-fast';
+import { powerAtFalseAlarm } from '../periodogram/false-alarm-power-level';
 import { DEFAULT_PULSAR_MASS_SOLAR } from '../physics/physics-constants';
 import {
   CompanionSearchCancelled,
@@ -109,7 +110,9 @@ export function searchCompanions(model: TimingModel, toas: readonly Toa[], geome
       resolutionPerDay: grid.stepPerDay * oversampling,
     });
     peaks.push({ round, periodDays, frequencyPerDay: pg.peakFrequencyPerDay, power: pg.peakPower, falseAlarmProbability: pg.falseAlarmProbability, aliasWarnings });
-    periodograms.push({ round, grid, frequencyPerDay: pg.frequencyPerDay, power: pg.power });
+    const fMaxPerDay = pg.frequencyPerDay[grid.count - 1];
+    const thresholdPower = powerAtFalseAlarm(falseAlarmThreshold, series.tDays.length, fMaxPerDay, series.tDays, series.weights); // inverse of the peak's Baluev 2008 FAP
+    periodograms.push({ round, grid, frequencyPerDay: pg.frequencyPerDay, power: pg.power, thresholdPower });
     if (!(pg.falseAlarmProbability < falseAlarmThreshold)) {
       stopReason = 'false-alarm-above-threshold';
       break;
