@@ -13,7 +13,7 @@ vi.mock('react-plotly.js/factory', () => ({
   default: () =>
     function FakePlot(props: {
       data: { name: string; x: number[]; y: number[]; marker?: { symbol: string } }[];
-      layout: { xaxis: { type: string; title: { text: string } }; yaxis: { title: { text: string } }; shapes: unknown[] };
+      layout: { xaxis: { type: string; title: { text: string } }; yaxis: { title: { text: string } }; shapes: unknown[]; annotations: { text: string }[] };
     }) {
       const peak = props.data.find((t) => t.marker?.symbol === 'diamond');
       return (
@@ -23,6 +23,7 @@ vi.mock('react-plotly.js/factory', () => ({
           data-traces={props.data.map((t) => `${t.name}:${t.x.length}`).join('|')}
           data-peak={peak ? `${peak.x[0]},${peak.y[0]}` : ''}
           data-shapes={props.layout.shapes.length}
+          data-annotations={props.layout.annotations.map((a) => a.text).join('|')}
         >
           {props.layout.xaxis.title.text} / {props.layout.yaxis.title.text}
         </div>
@@ -142,9 +143,10 @@ function periodogramOf(p: (typeof PEAKS)[number]) {
   const stepPerDay = (1 / p.periodDays) / 20;
   const minFrequencyPerDay = stepPerDay; // index 19 is the peak: f = 20·Δf = 1/period
   const power = Array.from({ length: count }, (_, k) => (k === 19 ? p.power : p.power * 0.2 * ((k % 5) / 5)));
-  return { round: p.round, grid: { minFrequencyPerDay, stepPerDay, count }, pointsPerBin: p.round === 1 ? 25 : 1, power };
+  // the threshold power: invented; round 4 as a run stored before the server kept it (null)
+  return { round: p.round, grid: { minFrequencyPerDay, stepPerDay, count }, pointsPerBin: p.round === 1 ? 25 : 1, power, thresholdPower: p.round === 4 ? null : 0.118 };
 }
-const PERIODOGRAMS = { searchRunId: 41, rounds: PEAKS.map(periodogramOf) };
+const PERIODOGRAMS = { searchRunId: 41, falseAlarmThreshold: 0.001, rounds: PEAKS.map(periodogramOf) };
 
 function routes(overrides: Record<string, Parameters<typeof mockApi>[0][string]> = {}) {
   return {
@@ -233,7 +235,11 @@ describe('search run page', () => {
     expect(plots[0].textContent).toBe('Period (days) / Normalised power');
     expect(plots[0].getAttribute('data-traces')).toBe('Power:40|Chosen peak (FAP 2.0e-9):1');
     expect(plots[0].getAttribute('data-peak')).toBe('41.3,0.62');
-    expect(plots[0].getAttribute('data-shapes')).toBe('0'); // the API sends no threshold power
+    expect(plots[0].getAttribute('data-shapes')).toBe('1'); // the threshold line at the power the API sent
+    expect(plots[0].getAttribute('data-annotations')).toBe('False-alarm threshold 1.0e-3');
+    expect(screen.getByRole('figure', { name: 'Periodogram of round 1' }).textContent).toMatch(/dashed line is the power 0\.118 at which the false-alarm probability \(Baluev 2008\) equals the threshold 1\.0e-3/);
+    expect(plots[3].getAttribute('data-shapes')).toBe('0'); // round 4: no threshold power sent
+    expect(screen.getByRole('figure', { name: 'Periodogram of round 4' }).textContent).toMatch(/stored without the power of its false-alarm threshold/);
     expect(screen.getByRole('figure', { name: 'Periodogram of round 1' }).textContent).toMatch(/each point the highest power of 25 neighbouring frequencies/);
     expect(screen.getByRole('figure', { name: 'Periodogram of round 2' }).textContent).not.toMatch(/neighbouring frequencies/);
 

@@ -17,6 +17,8 @@ const CURVE_COLOUR = '#8fb4ff';
 const PEAK_COLOUR = '#ef8a32';
 const THRESHOLD_COLOUR = '#e8e2c8';
 const WEBGL_ABOVE_POINTS = 3000;
+/** In the layout and as the element's style: a responsive redraw sizes from the container, which may offer 0 px. */
+const PLOT_HEIGHT_PX = 300;
 
 export interface PeriodogramPlotProps {
   series: PeriodogramSeries;
@@ -57,7 +59,7 @@ export default function PeriodogramPlot({ series, peak, thresholdPower, falseAla
   const layout = useMemo(
     () => ({
       autosize: true,
-      height: 300,
+      height: PLOT_HEIGHT_PX,
       margin: { l: 56, r: 16, t: 12, b: 48 },
       paper_bgcolor: 'rgba(0,0,0,0)',
       plot_bgcolor: 'rgba(0,0,0,0)',
@@ -72,10 +74,10 @@ export default function PeriodogramPlot({ series, peak, thresholdPower, falseAla
           : [],
       annotations:
         typeof thresholdPower === 'number'
-          ? [{ xref: 'paper', x: 1, xanchor: 'right', y: thresholdPower, yanchor: 'bottom', showarrow: false, text: `FAP ${formatFap(falseAlarmThreshold)}`, font: { size: 11, color: THRESHOLD_COLOUR } }]
+          ? [{ xref: 'paper', x: 1, xanchor: 'right', y: thresholdPower, yanchor: 'bottom', showarrow: false, text: `False-alarm threshold ${formatFap(falseAlarmThreshold)}`, font: { size: 11, color: THRESHOLD_COLOUR } }]
           : [],
     }),
     [thresholdPower, falseAlarmThreshold],
   );
-  return <Plot data={data} layout={layout} config={{ displaylogo: false, responsive: true }} useResizeHandler style={{ width: '100%' }} className="w-full" />;
+  return <Plot data={data} layout={layout} config={{ displaylogo: false, responsive: true }} useResizeHandler style={{ width: '100%', height: PLOT_HEIGHT_PX }} className="w-full" />;
 }
