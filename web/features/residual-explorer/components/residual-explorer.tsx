@@ -311,8 +311,7 @@ export function ResidualExplorer({ pulsarId, table, exclusions, canExclude, canR
               xTitle={X_AXIS_TITLES[choices.x]}
             />
           </Card>
-          {/* The min height guards against a responsive Plotly redraw collapsing the periodogram plot to 0 px. */}
-          <Card aria-labelledby="periodogram-title" className="[&_figure_.js-plotly-plot]:min-h-[280px]">
+          <Card aria-labelledby="periodogram-title">
             <CardTitle>
               <span id="periodogram-title">Periodogram of the shown residuals</span>
             </CardTitle>

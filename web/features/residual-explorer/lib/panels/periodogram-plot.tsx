@@ -15,6 +15,8 @@ const LEVEL_STYLES = [
   { colour: '#CC79A7', dash: 'dot' },
 ] as const;
 const PEAK_COLOUR = '#F0E442';
+/** The plot's height, px: in the layout and as the element's style (Note of PeriodogramPlot). */
+export const PERIODOGRAM_PLOT_HEIGHT_PX = 280;
 
 export interface PeriodogramPlotProps {
   periodogram: ResidualPeriodogram;
@@ -24,7 +26,12 @@ export interface PeriodogramPlotProps {
   onPickPeriod(periodDays: number): void;
 }
 
-/** Power against period (log axis), the FAP levels as dashed/dotted lines and the listed peaks numbered. */
+/**
+ * Power against period (log axis), the FAP levels as dashed/dotted lines and the listed peaks numbered.
+ *
+ * Note: the element's style carries the height as well as the layout: with a responsive redraw Plotly
+ * sizes the plot from its container, and a container without a height of its own can hand it 0 px.
+ */
 export default function PeriodogramPlot({ periodogram, chosenPeak, onPickPeriod }: PeriodogramPlotProps) {
   const data = useMemo(() => {
     const { periodDays, power, fapLevelPowers, peaks, minPeriodDays, maxPeriodDays } = periodogram;
@@ -70,7 +77,7 @@ export default function PeriodogramPlot({ periodogram, chosenPeak, onPickPeriod 
   const layout = useMemo(
     () => ({
       autosize: true,
-      height: 280,
+      height: PERIODOGRAM_PLOT_HEIGHT_PX,
       margin: { l: 56, r: 16, t: 8, b: 44 },
       paper_bgcolor: 'rgba(0,0,0,0)',
       plot_bgcolor: 'rgba(0,0,0,0)',
@@ -89,7 +96,7 @@ export default function PeriodogramPlot({ periodogram, chosenPeak, onPickPeriod 
       layout={layout as Partial<Plotly.Layout>}
       config={{ displaylogo: false, responsive: true }}
       useResizeHandler
-      style={{ width: '100%' }}
+      style={{ width: '100%', height: PERIODOGRAM_PLOT_HEIGHT_PX }} // an explicit height: see the Note above
       className="w-full"
       onClick={(event: Readonly<Plotly.PlotMouseEvent>) => {
         const x = event.points?.[0]?.x;
