@@ -15,29 +15,13 @@ import {
   type SearchRunStatus,
   type SearchRunSummary,
 } from '../contracts/search-runs';
+import { presentQueuedRunFields, reportRunProgress, type QueuedRunRow } from './queued-runs';
 import { decodeFloat64Column, encodeFloat64Column } from './residual-columns';
 import { userRefs } from './revisions';
 
-export interface SearchRunRow {
-  id: number;
-  pulsar_id: number;
-  revision_id: number;
-  inputs_hash: string;
+export interface SearchRunRow extends QueuedRunRow<SearchRunStatus> {
   options: string | SearchOptions; // JSON column: text from MariaDB
   settings: string | SearchEngineSettings;
-  status: SearchRunStatus;
-  progress_percent: number;
-  stage: string;
-  job_id: string | null;
-  requested_by: number | null;
-  queued_at: Date;
-  started_at: Date | null;
-  finished_at: Date | null;
-  duration_ms: number | null;
-  error_message: string | null;
-  toa_count: number | null;
-  excluded_count: number | null;
-  result_json: string | null;
   companions_found: number | null;
   final_chi2: number | null;
   saved_revision_id: number | null;
@@ -53,27 +37,13 @@ export interface SearchPeriodogramRow {
   power: Buffer;
 }
 
-const iso = (d: Date | null): string | null => (d ? d.toISOString() : null);
 const json = <T>(value: string | T): T => (typeof value === 'string' ? (JSON.parse(value) as T) : value);
 
 export function presentSearchRun(row: SearchRunRow, users: Map<number, UserRef>): SearchRun {
   return {
-    id: row.id,
-    pulsarId: row.pulsar_id,
-    revisionId: row.revision_id,
-    status: row.status,
-    progress: { percent: row.progress_percent, stage: row.stage },
-    inputsHash: row.inputs_hash,
+    ...presentQueuedRunFields(row, users),
     options: json<SearchOptions>(row.options),
     settings: json<SearchEngineSettings>(row.settings),
-    toaCount: row.toa_count,
-    excludedCount: row.excluded_count,
-    requestedBy: row.requested_by === null ? null : (users.get(row.requested_by) ?? null),
-    queuedAt: row.queued_at.toISOString(),
-    startedAt: iso(row.started_at),
-    finishedAt: iso(row.finished_at),
-    durationMs: row.duration_ms,
-    errorMessage: row.error_message,
     savedRevisionId: row.saved_revision_id,
     result: row.result_json === null ? null : (JSON.parse(row.result_json) as SearchResult),
   };
@@ -101,9 +71,7 @@ export async function findSearchRun(knex: Knex | Knex.Transaction, id: number): 
 
 /** Sets progress on a run that is still running; returns the run's status afterwards (to notice a cancel). */
 export async function reportSearchRunProgress(knex: Knex, id: number, percent: number, stage: string): Promise<SearchRunStatus | undefined> {
-  await knex('search_runs').where({ id, status: 'running' }).update({ progress_percent: percent, stage });
-  const row = (await knex('search_runs').where({ id }).first('status')) as { status: SearchRunStatus } | undefined;
-  return row?.status;
+  return (await reportRunProgress(knex, 'search_runs', id, percent, stage)) as SearchRunStatus | undefined;
 }
 
 /** A periodogram as the engine computed it (every grid frequency). */
