@@ -313,7 +313,7 @@ describe('reading search runs', () => {
 
     const res = await viewer.agent.get(`/api/search-runs/${runId}/periodograms`).expect(200);
     expect(res.body.data.searchRunId).toBe(runId);
-    expect(res.body.data.rounds).toEqual(rounds.map((r) => ({ round: r.round, grid: r.grid, pointsPerBin: 1, power: Array.from(r.power) })));
+    expect(res.body.data.rounds).toEqual(rounds.map((r) => ({ round: r.round, grid: r.grid, pointsPerBin: 1, power: Array.from(r.power), thresholdPower: null }))); // searchResult's peaks carry no threshold power
   });
 
   it('keeps a periodogram longer than the storage limit max-pooled, so its peak keeps its height and bin', async () => {
