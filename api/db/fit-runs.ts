@@ -1,10 +1,10 @@
 /**
  * Row type of `fit_runs`, its presentations (FitRun, FitRunSummary of
- * api/contracts/fit-runs.ts) and the small updates the worker makes.
+ * api/contracts/fit-runs.ts); the worker's progress update is api/db/queued-runs.ts.
  */
 import type { Knex } from 'knex';
 import type { FitEngineSettings, FitResult, FitRun, FitRunStatus, FitRunSummary, UserRef } from '../contracts/fit-runs';
-import { presentQueuedRunFields, reportRunProgress, type QueuedRunRow } from './queued-runs';
+import { presentQueuedRunFields, type QueuedRunRow } from './queued-runs';
 import { userRefs } from './revisions';
 
 export interface FitRunRow extends QueuedRunRow<FitRunStatus> {
@@ -37,9 +37,4 @@ export async function presentFitRuns(knex: Knex, rows: readonly FitRunRow[]): Pr
 
 export async function findFitRun(knex: Knex, id: number): Promise<FitRunRow | undefined> {
   return (await knex<FitRunRow>('fit_runs').where({ id }).first()) as FitRunRow | undefined;
-}
-
-/** Sets progress on a run that is still running; returns the run's status afterwards (to notice a cancel). */
-export async function reportFitRunProgress(knex: Knex, id: number, percent: number, stage: string): Promise<FitRunStatus | undefined> {
-  return (await reportRunProgress(knex, 'fit_runs', id, percent, stage)) as FitRunStatus | undefined;
 }

@@ -1,7 +1,7 @@
 /**
  * Row types of `search_runs` and `search_periodograms`, their presentations
  * (SearchRun, SearchRunSummary, SearchPeriodograms of api/contracts/search-runs.ts)
- * and the small updates the worker makes.
+ * and the periodogram encoding the worker uses.
  */
 import type { Knex } from 'knex';
 import type { UserRef } from '../contracts/fit-runs';
@@ -15,7 +15,7 @@ import {
   type SearchRunStatus,
   type SearchRunSummary,
 } from '../contracts/search-runs';
-import { presentQueuedRunFields, reportRunProgress, type QueuedRunRow } from './queued-runs';
+import { presentQueuedRunFields, type QueuedRunRow } from './queued-runs';
 import { decodeFloat64Column, encodeFloat64Column } from './residual-columns';
 import { userRefs } from './revisions';
 
@@ -67,11 +67,6 @@ export async function presentSearchRuns(knex: Knex, rows: readonly SearchRunRow[
 
 export async function findSearchRun(knex: Knex | Knex.Transaction, id: number): Promise<SearchRunRow | undefined> {
   return (await knex<SearchRunRow>('search_runs').where({ id }).first()) as SearchRunRow | undefined;
-}
-
-/** Sets progress on a run that is still running; returns the run's status afterwards (to notice a cancel). */
-export async function reportSearchRunProgress(knex: Knex, id: number, percent: number, stage: string): Promise<SearchRunStatus | undefined> {
-  return (await reportRunProgress(knex, 'search_runs', id, percent, stage)) as SearchRunStatus | undefined;
 }
 
 /** A periodogram as the engine computed it (every grid frequency). */

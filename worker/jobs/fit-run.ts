@@ -21,12 +21,14 @@
  *    and the engine's warning naming the last χ² (result.warnings), never hidden.
  * 5. The engine runs in a worker thread (fit-run-thread.ts), so BullMQ's lock
  *    renewal and the cancel checks go on while it computes.
+ * 6. Claim, progress, cancel, commit guard and failure marking are
+ *    queued-run-lifecycle.ts, shared with the search-run job.
  */
 import { UnrecoverableError, type Job } from 'bullmq';
 import type { Knex } from 'knex';
 import type { FitResult } from '../../api/contracts/fit-runs';
 import { FitRunJob, type JobProgress } from '../../api/contracts/queues';
-import { findFitRun, reportFitRunProgress, type FitRunRow } from '../../api/db/fit-runs';
+import { findFitRun, type FitRunRow } from '../../api/db/fit-runs';
 import { loadToasForFit } from '../../api/db/load-toas-for-fit';
 import { loadObservatories } from '../../api/db/observatories';
 import { encodeResidualColumns } from '../../api/db/residual-columns';
@@ -37,8 +39,8 @@ import { fitInputsHash, loadFitSelection, loadStoredMjdTexts } from '../../api/s
 import { parseObservatory } from '../timing/earth/read-observatories';
 import type { FitEngineInput, FitEngineOutput } from './fit-run-engine';
 import { notifyFitRunFinished } from './fit-run-events';
-import { EngineThreadError } from './engine-thread';
 import { runFitInThread } from './fit-run-thread';
+import { alreadySucceeded, claimRun, engineResult, failRunWhenFinal, lockRunningRow, type QueuedRunRef } from './queued-run-lifecycle';
 import { buildExplorerColumns } from './fit-run-explorer-columns';
 
 export interface FitRunDeps {
@@ -52,13 +54,8 @@ export interface FitRunJobResult {
 }
 
 const MAX_ITERATIONS = 20; // the engine's default (fitGaussNewton), used for the progress scale
-const CANCELLED = 'cancelled';
 
-class CancelledError extends UnrecoverableError {
-  constructor() {
-    super(CANCELLED);
-  }
-}
+const runRef = (fitRunId: number): QueuedRunRef => ({ table: 'fit_runs', label: 'fit', id: fitRunId });
 
 export async function processFitRun(job: Job, deps: FitRunDeps): Promise<FitRunJobResult> {
   const parsed = FitRunJob.safeParse(job.data);
@@ -67,40 +64,16 @@ export async function processFitRun(job: Job, deps: FitRunDeps): Promise<FitRunJ
   const { knex } = deps;
 
   const run = await findFitRun(knex, fitRunId);
-  if (!run) throw new UnrecoverableError(`fit-run: fit run ${fitRunId} does not exist`);
-  if (run.status === 'succeeded') return { fitRunId, status: 'succeeded', reusedEarlierCommit: true };
-  if (run.status === 'cancelled') throw new CancelledError();
-  if (run.status === 'failed') throw new UnrecoverableError(`fit-run: fit run ${fitRunId} has already failed: ${run.error_message ?? ''}`);
-
-  try {
-    return await fitAndStore(job, knex, run);
-  } catch (error) {
-    if (error instanceof CancelledError) throw error;
-    const unrecoverable = error instanceof UnrecoverableError;
-    const lastAttempt = job.attemptsMade + 1 >= (job.opts.attempts ?? 1);
-    if (unrecoverable || lastAttempt) {
-      const failed = await markFailed(knex, fitRunId, (error as Error).message).catch(() => false);
-      if (failed) await notifyFitRunFinished({ fitRunId, pulsarId: run.pulsar_id, campaignId: run.campaign_id, status: 'failed' });
-    }
-    throw error;
-  }
+  if (alreadySucceeded(runRef(fitRunId), run)) return { fitRunId, status: 'succeeded', reusedEarlierCommit: true };
+  const found = run as FitRunRow;
+  return failRunWhenFinal(job, knex, runRef(fitRunId), () => fitAndStore(job, knex, found), () =>
+    notifyFitRunFinished({ fitRunId, pulsarId: found.pulsar_id, campaignId: found.campaign_id, status: 'failed' }),
+  );
 }
 
 async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRunJobResult> {
   const fitRunId = run.id;
-  const startedAtMs = Date.now();
-  const started = await knex('fit_runs')
-    .where({ id: fitRunId })
-    .whereIn('status', ['queued', 'running'])
-    .update({ status: 'running', started_at: new Date(startedAtMs), progress_percent: 0, stage: 'loading TOAs', error_message: null });
-  if (started === 0) throw new CancelledError();
-  const report = async (percent: number, stage: string) => {
-    const progress: JobProgress = { percent, stage };
-    await job.updateProgress(progress);
-    const status = await reportFitRunProgress(knex, fitRunId, percent, stage);
-    if (status !== 'running') throw new CancelledError();
-  };
-  await report(0, 'loading TOAs');
+  const { startedAtMs, report } = await claimRun(job, knex, runRef(fitRunId));
 
   const inputs = await knex.transaction(async (trx) => {
     const revision = await findRevision(trx as unknown as Knex, run.revision_id);
@@ -134,14 +107,7 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
     if (event.type === 'stage') await report(event.stage === 'barycentring' ? 5 : 30, event.stage === 'barycentring' ? 'barycentring' : 'fitting: iteration 1');
     else await report(Math.min(90, 30 + (60 * event.iteration) / MAX_ITERATIONS), `fitting: iteration ${event.iteration + 1}`);
   });
-  let output: FitEngineOutput;
-  try {
-    output = await thread.result;
-  } catch (error) {
-    await thread.terminate();
-    if (error instanceof EngineThreadError && error.timingInput) throw new UnrecoverableError(error.message);
-    throw error;
-  }
+  const output: FitEngineOutput = await engineResult(thread);
   await report(95, 'storing results');
 
   const { toas, toaIds } = inputs.loaded;
@@ -178,8 +144,7 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
   };
   const finishedAtMs = Date.now();
   await knex.transaction(async (trx) => {
-    const current = (await trx('fit_runs').where({ id: fitRunId }).forUpdate().first('status')) as { status: string } | undefined;
-    if (current?.status !== 'running') throw new CancelledError();
+    await lockRunningRow(trx, runRef(fitRunId));
     await trx('fit_residuals').where({ fit_run_id: fitRunId }).del();
     await trx('fit_residuals').insert({ fit_run_id: fitRunId, ...residuals });
     await trx('fit_explorer_columns').where({ fit_run_id: fitRunId }).del();
@@ -205,12 +170,3 @@ async function fitAndStore(job: Job, knex: Knex, run: FitRunRow): Promise<FitRun
 }
 
 const finite = (x: number): number | null => (Number.isFinite(x) ? x : null);
-
-/** Marks a queued or running run failed; false when it had already reached a final status. */
-async function markFailed(knex: Knex, fitRunId: number, message: string): Promise<boolean> {
-  const changed = await knex('fit_runs')
-    .where({ id: fitRunId })
-    .whereIn('status', ['queued', 'running'])
-    .update({ status: 'failed', stage: 'failed', error_message: message, finished_at: knex.fn.now(3) });
-  return changed > 0;
-}

@@ -21,6 +21,8 @@
  *    attempt marks the run failed.
  * 4. The engine runs in a worker thread (search-run-thread.ts), so BullMQ's lock
  *    renewal and the cancel checks go on while it computes.
+ * 5. Claim, progress, cancel, commit guard and failure marking are
+ *    queued-run-lifecycle.ts, shared with the fit-run job.
  */
 import { UnrecoverableError, type Job } from 'bullmq';
 import type { Knex } from 'knex';
@@ -29,12 +31,12 @@ import type { SearchOptions } from '../../api/contracts/search-runs';
 import { loadToasForFit } from '../../api/db/load-toas-for-fit';
 import { loadObservatories } from '../../api/db/observatories';
 import { findRevision } from '../../api/db/revisions';
-import { encodeSearchPeriodogram, findSearchRun, reportSearchRunProgress, type SearchRunRow } from '../../api/db/search-runs';
+import { encodeSearchPeriodogram, findSearchRun, type SearchRunRow } from '../../api/db/search-runs';
 import { loadFitSelection } from '../../api/services/fit-runs/fit-inputs';
 import { searchInputsHash } from '../../api/services/search-runs/search-inputs';
 import { parseObservatory } from '../timing/earth/read-observatories';
 import type { SearchEngineInput, SearchEngineOutput } from './search-run-engine';
-import { EngineThreadError } from './engine-thread';
+import { alreadySucceeded, claimRun, engineResult, failRunWhenFinal, lockRunningRow, type QueuedRunRef } from './queued-run-lifecycle';
 import { runSearchInThread } from './search-run-thread';
 
 export interface SearchRunDeps {
@@ -47,13 +49,7 @@ export interface SearchRunJobResult {
   reusedEarlierCommit: boolean; // true when an earlier attempt had already committed the outputs
 }
 
-const CANCELLED = 'cancelled';
-
-class CancelledError extends UnrecoverableError {
-  constructor() {
-    super(CANCELLED);
-  }
-}
+const runRef = (searchRunId: number): QueuedRunRef => ({ table: 'search_runs', label: 'search', id: searchRunId });
 
 const optionsOf = (row: SearchRunRow): SearchOptions => (typeof row.options === 'string' ? JSON.parse(row.options) : row.options) as SearchOptions;
 
@@ -64,38 +60,15 @@ export async function processSearchRun(job: Job, deps: SearchRunDeps): Promise<S
   const { knex } = deps;
 
   const run = await findSearchRun(knex, searchRunId);
-  if (!run) throw new UnrecoverableError(`search-run: search run ${searchRunId} does not exist`);
-  if (run.status === 'succeeded') return { searchRunId, status: 'succeeded', reusedEarlierCommit: true };
-  if (run.status === 'cancelled') throw new CancelledError();
-  if (run.status === 'failed') throw new UnrecoverableError(`search-run: search run ${searchRunId} has already failed: ${run.error_message ?? ''}`);
-
-  try {
-    return await searchAndStore(job, knex, run);
-  } catch (error) {
-    if (error instanceof CancelledError) throw error;
-    const unrecoverable = error instanceof UnrecoverableError;
-    const lastAttempt = job.attemptsMade + 1 >= (job.opts.attempts ?? 1);
-    if (unrecoverable || lastAttempt) await markFailed(knex, searchRunId, (error as Error).message).catch(() => false);
-    throw error;
-  }
+  if (alreadySucceeded(runRef(searchRunId), run)) return { searchRunId, status: 'succeeded', reusedEarlierCommit: true };
+  const found = run as SearchRunRow;
+  return failRunWhenFinal(job, knex, runRef(searchRunId), () => searchAndStore(job, knex, found));
 }
 
 async function searchAndStore(job: Job, knex: Knex, run: SearchRunRow): Promise<SearchRunJobResult> {
   const searchRunId = run.id;
   const options = optionsOf(run);
-  const startedAtMs = Date.now();
-  const started = await knex('search_runs')
-    .where({ id: searchRunId })
-    .whereIn('status', ['queued', 'running'])
-    .update({ status: 'running', started_at: new Date(startedAtMs), progress_percent: 0, stage: 'loading TOAs', error_message: null });
-  if (started === 0) throw new CancelledError();
-  const report = async (percent: number, stage: string) => {
-    const progress: JobProgress = { percent, stage };
-    await job.updateProgress(progress);
-    const status = await reportSearchRunProgress(knex, searchRunId, percent, stage);
-    if (status !== 'running') throw new CancelledError();
-  };
-  await report(0, 'loading TOAs');
+  const { startedAtMs, report } = await claimRun(job, knex, runRef(searchRunId));
 
   const inputs = await knex.transaction(async (trx) => {
     const revision = await findRevision(trx as unknown as Knex, run.revision_id);
@@ -128,21 +101,13 @@ async function searchAndStore(job: Job, knex: Knex, run: SearchRunRow): Promise<
     if (event.type === 'stage') await report(event.stage === 'barycentring' ? 2 : 5, event.stage === 'barycentring' ? 'barycentring' : 'round 1: fit');
     else await report(Math.min(95, 5 + 90 * Math.max(0, Math.min(1, event.fraction))), `round ${event.round}: ${event.stage}`);
   });
-  let output: SearchEngineOutput;
-  try {
-    output = await thread.result;
-  } catch (error) {
-    await thread.terminate();
-    if (error instanceof EngineThreadError && error.timingInput) throw new UnrecoverableError(error.message);
-    throw error;
-  }
+  const output: SearchEngineOutput = await engineResult(thread);
   await report(96, 'storing results');
 
   const periodogramRows = output.periodograms.map((p) => encodeSearchPeriodogram(searchRunId, p));
   const finishedAtMs = Date.now();
   await knex.transaction(async (trx) => {
-    const current = (await trx('search_runs').where({ id: searchRunId }).forUpdate().first('status')) as { status: string } | undefined;
-    if (current?.status !== 'running') throw new CancelledError();
+    await lockRunningRow(trx, runRef(searchRunId));
     await trx('search_periodograms').where({ search_run_id: searchRunId }).del();
     for (const row of periodogramRows) await trx('search_periodograms').insert(row); // one row at a time: each may be MBs
     await trx('search_runs')
@@ -161,13 +126,4 @@ async function searchAndStore(job: Job, knex: Knex, run: SearchRunRow): Promise<
   });
   await job.updateProgress({ percent: 100, stage: 'done' } satisfies JobProgress);
   return { searchRunId, status: 'succeeded', reusedEarlierCommit: false };
-}
-
-/** Marks a queued or running run failed; false when it had already reached a final status. */
-async function markFailed(knex: Knex, searchRunId: number, message: string): Promise<boolean> {
-  const changed = await knex('search_runs')
-    .where({ id: searchRunId })
-    .whereIn('status', ['queued', 'running'])
-    .update({ status: 'failed', stage: 'failed', error_message: message, finished_at: knex.fn.now(3) });
-  return changed > 0;
 }
