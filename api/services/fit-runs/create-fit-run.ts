@@ -9,8 +9,7 @@ import type { Knex } from 'knex';
 import { FIT_ENGINE_SETTINGS, type FitRun } from '../../contracts/fit-runs';
 import { JOB_TYPES, type FitRunJob } from '../../contracts/queues';
 import { findFitRun, presentFitRuns, type FitRunRow } from '../../db/fit-runs';
-import { findRevision } from '../../db/revisions';
-import { fieldError, notFound } from '../../errors';
+import { enqueueRun, findReusableRun, loadRevisionOfPulsar } from '../queued-runs/queue-run';
 import { fitInputsHash, loadFitSelection } from './fit-inputs';
 
 export interface CreateFitRunInput {
@@ -35,19 +34,12 @@ export const fitRunJobId = (fitRunId: number): string => `fit-run-${fitRunId}`;
  */
 export async function createFitRun(deps: { knex: Knex; queue: Queue }, input: CreateFitRunInput): Promise<{ fitRun: FitRun; reused: boolean }> {
   const { knex, queue } = deps;
-  const pulsar = await knex('pulsars').where({ id: input.pulsarId }).first('id');
-  if (!pulsar) throw notFound('pulsar');
-  const revision = await findRevision(knex, input.revisionId);
-  if (!revision) throw notFound('revision');
-  if (revision.pulsar_id !== input.pulsarId) throw fieldError(['revisionId'], 'not a revision of this pulsar');
+  const revision = await loadRevisionOfPulsar(knex, input.pulsarId, input.revisionId);
 
   const selection = await loadFitSelection(knex, input.pulsarId);
   const inputsHash = fitInputsHash(revision.model_json, selection);
   if (input.recompute !== true) {
-    const earlier = (await knex('fit_runs')
-      .where({ inputs_hash: inputsHash, status: 'succeeded', pulsar_id: input.pulsarId })
-      .orderBy('id', 'desc')
-      .first()) as FitRunRow | undefined;
+    const earlier = await findReusableRun<FitRunRow>(knex, 'fit_runs', input.pulsarId, inputsHash);
     if (earlier) return { fitRun: (await presentFitRuns(knex, [earlier]))[0], reused: true };
   }
 
@@ -64,17 +56,16 @@ export async function createFitRun(deps: { knex: Knex; queue: Queue }, input: Cr
     excluded_count: selection.excludedIds.length,
   });
   const fitRunId = Number(id);
-  const jobId = fitRunJobId(fitRunId);
-  await knex('fit_runs').where({ id: fitRunId }).update({ job_id: jobId });
   const payload: FitRunJob = { fitRunId };
-  try {
-    await queue.add(JOB_TYPES.fitRun, payload, { jobId, ...(input.parent ? { parent: input.parent } : {}) });
-  } catch (error) {
-    await knex('fit_runs')
-      .where({ id: fitRunId })
-      .update({ status: 'failed', stage: 'not queued', error_message: `could not queue the fit: ${(error as Error).message}`, finished_at: knex.fn.now(3) });
-    throw error;
-  }
+  await enqueueRun(knex, queue, {
+    table: 'fit_runs',
+    id: fitRunId,
+    jobId: fitRunJobId(fitRunId),
+    jobType: JOB_TYPES.fitRun,
+    payload,
+    options: input.parent ? { parent: input.parent } : {},
+    what: 'fit',
+  });
   const row = await findFitRun(knex, fitRunId);
   if (!row) throw new Error(`fit run ${fitRunId} vanished after insert`);
   return { fitRun: (await presentFitRuns(knex, [row]))[0], reused: false };

@@ -8,10 +8,10 @@ import type { Queue } from 'bullmq';
 import type { Knex } from 'knex';
 import { SEARCH_RUN_JOB_TYPE, type SearchRunJob } from '../../contracts/queues';
 import { MAX_SEARCH_FREQUENCIES, SEARCH_ENGINE_SETTINGS, type CreateSearchRunBody, type SearchOptions, type SearchRun } from '../../contracts/search-runs';
-import { findRevision } from '../../db/revisions';
 import { findSearchRun, presentSearchRuns, type SearchRunRow } from '../../db/search-runs';
-import { fieldError, notFound } from '../../errors';
+import { fieldError } from '../../errors';
 import { loadFitSelection } from '../fit-runs/fit-inputs';
+import { enqueueRun, findReusableRun, loadRevisionOfPulsar } from '../queued-runs/queue-run';
 import { resolveSearchOptions, searchInputsHash } from './search-inputs';
 
 export interface CreateSearchRunInput extends CreateSearchRunBody {
@@ -57,21 +57,14 @@ export const searchRunJobId = (searchRunId: number): string => `search-run-${sea
  */
 export async function createSearchRun(deps: { knex: Knex; queue: Queue }, input: CreateSearchRunInput): Promise<{ searchRun: SearchRun; reused: boolean }> {
   const { knex, queue } = deps;
-  const pulsar = await knex('pulsars').where({ id: input.pulsarId }).first('id');
-  if (!pulsar) throw notFound('pulsar');
-  const revision = await findRevision(knex, input.revisionId);
-  if (!revision) throw notFound('revision');
-  if (revision.pulsar_id !== input.pulsarId) throw fieldError(['revisionId'], 'not a revision of this pulsar');
+  const revision = await loadRevisionOfPulsar(knex, input.pulsarId, input.revisionId);
 
   const options = resolveSearchOptions(input);
   await checkGridSize(knex, input.pulsarId, options);
   const selection = await loadFitSelection(knex, input.pulsarId);
   const inputsHash = searchInputsHash(revision.model_json, selection, options);
   if (input.recompute !== true) {
-    const earlier = (await knex('search_runs')
-      .where({ inputs_hash: inputsHash, status: 'succeeded', pulsar_id: input.pulsarId })
-      .orderBy('id', 'desc')
-      .first()) as SearchRunRow | undefined;
+    const earlier = await findReusableRun<SearchRunRow>(knex, 'search_runs', input.pulsarId, inputsHash);
     if (earlier) return { searchRun: (await presentSearchRuns(knex, [earlier]))[0], reused: true };
   }
 
@@ -88,17 +81,8 @@ export async function createSearchRun(deps: { knex: Knex; queue: Queue }, input:
     excluded_count: selection.excludedIds.length,
   });
   const searchRunId = Number(id);
-  const jobId = searchRunJobId(searchRunId);
-  await knex('search_runs').where({ id: searchRunId }).update({ job_id: jobId });
   const payload: SearchRunJob = { searchRunId };
-  try {
-    await queue.add(SEARCH_RUN_JOB_TYPE, payload, { jobId });
-  } catch (error) {
-    await knex('search_runs')
-      .where({ id: searchRunId })
-      .update({ status: 'failed', stage: 'not queued', error_message: `could not queue the search: ${(error as Error).message}`, finished_at: knex.fn.now(3) });
-    throw error;
-  }
+  await enqueueRun(knex, queue, { table: 'search_runs', id: searchRunId, jobId: searchRunJobId(searchRunId), jobType: SEARCH_RUN_JOB_TYPE, payload, what: 'search' });
   const row = await findSearchRun(knex, searchRunId);
   if (!row) throw new Error(`search run ${searchRunId} vanished after insert`);
   return { searchRun: (await presentSearchRuns(knex, [row]))[0], reused: false };
