@@ -10,56 +10,32 @@
  * demo's starting model of FPG-J1839-1127 (spin and DM free), a revision that also
  * frees the position (the demo's off-sky pulsar), and a finished fit of each.
  */
-import type { APIRequestContext, BrowserContext, Page } from 'playwright-core';
+import type { APIRequestContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadConfig } from '../../api/config';
-import { createKnex } from '../../api/db/create-knex';
-import { seedDemo, type DemoSignIn } from '../../api/db/seed-demo';
-import { startApi, type RunningApi } from '../../api/server';
-import { startWorker } from '../../worker/index';
-import { artifactPath, launchBrowser } from './helpers/browser';
+import type { RunningApi } from '../../api/server';
+import { artifactPath } from './helpers/browser';
+import { startBrowserScenario, type BrowserScenario } from './helpers/browser-scenario';
 
 const PULSAR = 'FPG-J1839-1127'; // the demo's pulsar with a slightly wrong starting position (api/db/demo-scenario/demo-pulsars.ts)
 const FIT_WAIT_MS = 240_000;
 const POSITION = ['astrometry.ra_hms', 'astrometry.dec_dms'];
 
+let scenario: BrowserScenario;
 let api: RunningApi;
-let worker: ReturnType<typeof startWorker>;
-let browser: BrowserContext;
-let users: DemoSignIn[];
 let pulsarId: number;
-const consoleErrors: string[] = [];
+let signIn: BrowserScenario['signIn'];
+let consoleErrors: string[];
 
 beforeAll(async () => {
-  const config = loadConfig();
-  const knex = createKnex(config);
-  users = (await seedDemo(knex)).users;
-  pulsarId = (await knex('pulsars').where({ name: PULSAR }).first('id')).id;
-  await knex.destroy();
-  api = await startApi();
-  worker = startWorker(config);
-  browser = await launchBrowser();
+  scenario = await startBrowserScenario(async (knex) => {
+    pulsarId = (await knex('pulsars').where({ name: PULSAR }).first('id')).id;
+  });
+  ({ api, signIn, consoleErrors } = scenario);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await worker?.close();
-  await api?.stop();
+  await scenario?.close();
 });
-
-async function signIn(role: string): Promise<Page> {
-  const user = users.find((u) => u.role === role)!;
-  const page = await browser.newPage();
-  page.on('console', (msg) => {
-    if (msg.type() === 'error' && !/status of 401/.test(msg.text())) consoleErrors.push(msg.text());
-  });
-  await page.goto(`${api.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(user.email);
-  await page.getByLabel('Password').fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Dashboard' }).waitFor();
-  return page;
-}
 
 /** The API as the signed-in browser user (same cookies), unwrapping `{ data }`. */
 function apiAs(request: APIRequestContext) {

@@ -5,42 +5,37 @@
  * the same pulsar, watches it finish and reads the result with its residual
  * plot. Screenshots: test-artifacts/workflow-*.png (git-ignored).
  */
-import type { BrowserContext, Page } from 'playwright-core';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadConfig } from '../../api/config';
-import { createKnex } from '../../api/db/create-knex';
-import { seedDemo, type DemoSignIn } from '../../api/db/seed-demo';
-import { startApi, type RunningApi } from '../../api/server';
-import { startWorker } from '../../worker/index';
+import type { RunningApi } from '../../api/server';
 import { builtinObservatories } from '../../worker/timing/earth/builtin-observatories';
 import { readModelFile } from '../../worker/timing/model/read-model-file';
 import { simulateToas } from '../../worker/timing/simulate/simulate-toas';
 import { parseMjd } from '../../worker/timing/time/mjd-string';
 import { writeToaCsv } from '../../worker/timing/toas/write-toa-csv';
-import { artifactPath, launchBrowser } from './helpers/browser';
+import { artifactPath } from './helpers/browser';
+import { startBrowserScenario, type BrowserScenario } from './helpers/browser-scenario';
 
 const PULSAR = 'FPG-J0412+2733'; // the demo's young pulsar
 
+let scenario: BrowserScenario;
 let api: RunningApi;
-let worker: ReturnType<typeof startWorker>;
-let browser: BrowserContext;
-let users: DemoSignIn[];
 let pulsarId: number;
 let uploadFile: string;
-const consoleErrors: string[] = [];
+let signIn: BrowserScenario['signIn'];
+let consoleErrors: string[];
 
 beforeAll(async () => {
-  const config = loadConfig();
-  const knex = createKnex(config);
-  users = (await seedDemo(knex)).users;
-  const pulsar = await knex('pulsars').where({ name: PULSAR }).first('id');
-  pulsarId = pulsar.id;
-  // A new observing block (after the demo's TOAs) simulated from the pulsar's stored starting model.
-  const revision = await knex('model_revisions').where({ pulsar_id: pulsarId }).orderBy('id').first('model_json');
-  await knex.destroy();
+  let revision: { model_json: string } = { model_json: '' };
+  scenario = await startBrowserScenario(async (knex) => {
+    const pulsar = await knex('pulsars').where({ name: PULSAR }).first('id');
+    pulsarId = pulsar.id;
+    // A new observing block (after the demo's TOAs) simulated from the pulsar's stored starting model.
+    revision = await knex('model_revisions').where({ pulsar_id: pulsarId }).orderBy('id').first('model_json');
+  });
+  ({ api, signIn, consoleErrors } = scenario);
   const sites = new Map(builtinObservatories().map((o) => [o.code, o]));
   const { toas } = simulateToas(
     readModelFile(JSON.parse(revision.model_json)),
@@ -49,30 +44,11 @@ beforeAll(async () => {
   );
   uploadFile = path.join(mkdtempSync(path.join(os.tmpdir(), 'pk-upload-')), 'fpg-j0412+2733_harrow-ridge_2026.csv');
   writeFileSync(uploadFile, writeToaCsv(toas, { fractionDigits: 20 }));
-  api = await startApi();
-  worker = startWorker(config);
-  browser = await launchBrowser();
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await worker?.close();
-  await api?.stop();
+  await scenario?.close();
 });
-
-async function signIn(role: string): Promise<Page> {
-  const user = users.find((u) => u.role === role)!;
-  const page = await browser.newPage();
-  page.on('console', (msg) => {
-    if (msg.type() === 'error' && !/status of 401/.test(msg.text())) consoleErrors.push(msg.text());
-  });
-  await page.goto(`${api.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(user.email);
-  await page.getByLabel('Password').fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Dashboard' }).waitFor();
-  return page;
-}
 
 describe('the daily workflow in the browser', () => {
   it('lets the observer upload a TOA file to a demo pulsar', async () => {
