@@ -1,15 +1,10 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Alert } from '../../components/alert';
-import { Button } from '../../components/button';
-import { Card, CardTitle } from '../../components/card';
 import { Page } from '../../components/page';
-import { describeError, ErrorPanel, LoadingPanel } from '../../components/query-state';
+import { LoadingPanel } from '../../components/query-state';
 import { TextLink } from '../../components/text-link';
 import { paths } from '../../config/paths';
-import { isApiError } from '../../lib/api-client';
-import { formatDateTimeUtc } from '../../lib/format';
 import { useMe } from '../../features/auth/api/get-me';
 import { useCancelFitRun } from '../../features/fit-runs/api/cancel-fit-run';
 import { fitRunQueryOptions, isFinalFitStatus, useFitRun, type FitRun } from '../../features/fit-runs/api/get-fit-run';
@@ -18,6 +13,7 @@ import { FitProgress } from '../../features/fit-runs/components/fit-progress';
 import { FitSettingsList, FitStatistics, FitWarnings } from '../../features/fit-runs/components/fit-statistics';
 import { FitStatusBadge } from '../../features/fit-runs/components/fit-status-badge';
 import { fittedModelUrl, residualsCsvUrl } from '../../features/fit-runs/lib/fit-run-downloads';
+import { RunCancelControl, RunEndedAlert, RunLoadError, RunSection as Section, RunTimeline } from '../../features/jobs/components/run-page-parts';
 import { WORKFLOW_PERMISSIONS } from '../../features/pulsars/lib/workflow-permissions';
 import { ResidualPlotPanel } from '../../features/residual-plot/components/lazy-residual-plot';
 import { RevisionReleaseMark } from '../../features/revisions/components/revision-release-mark';
@@ -37,50 +33,13 @@ const UNCERTAINTY_NOTE = 'Uncertainties: unscaled (formal) 1σ.';
 const downloadClasses =
   'inline-flex h-9 items-center rounded-md border border-night-600 bg-night-800 px-3 text-sm font-medium text-night-100 hover:border-night-500 hover:bg-night-700 focus-ring';
 
-function Timeline({ run }: { run: FitRun }) {
-  const items: [string, string | null][] = [
-    ['Queued', run.queuedAt],
-    ['Started', run.startedAt],
-    ['Finished', run.finishedAt],
-  ];
-  return (
-    <p className="text-xs text-night-400">
-      {items
-        .filter(([, at]) => at)
-        .map(([label, at]) => `${label} ${formatDateTimeUtc(at!)}`)
-        .join(' · ')}
-      {run.requestedBy ? ` · by ${run.requestedBy.displayName}` : ''}
-    </p>
-  );
-}
-
-function Section({ title, children }: { title: string; children: ReactNode }) {
-  return (
-    <Card>
-      <CardTitle>{title}</CardTitle>
-      {children}
-    </Card>
-  );
-}
-
 function InProgress({ run, canCancel }: { run: FitRun; canCancel: boolean }) {
   const cancel = useCancelFitRun(String(run.id));
   return (
     <Section title={run.status === 'queued' ? 'Waiting for a worker' : 'Fitting'}>
       <div className="flex flex-col gap-4">
         <FitProgress percent={run.progress?.percent ?? 0} stage={run.progress?.stage ?? run.status} />
-        {canCancel ? (
-          <div>
-            <Button variant="danger" busy={cancel.isPending} onClick={() => cancel.mutate()}>
-              Cancel fit
-            </Button>
-          </div>
-        ) : null}
-        {cancel.isError ? (
-          <Alert tone="error">
-            {isApiError(cancel.error) && cancel.error.status === 409 ? 'The run had already finished.' : describeError(cancel.error)}
-          </Alert>
-        ) : null}
+        <RunCancelControl cancel={cancel} canCancel={canCancel} label="Cancel fit" finishedText="The run had already finished." />
       </div>
     </Section>
   );
@@ -88,16 +47,7 @@ function InProgress({ run, canCancel }: { run: FitRun; canCancel: boolean }) {
 
 function Finished({ run }: { run: FitRun }) {
   const id = String(run.id);
-  if (run.status === 'failed') {
-    return (
-      <Alert tone="error" title="The fit failed">
-        {run.errorMessage ?? 'No reason was given.'}
-      </Alert>
-    );
-  }
-  if (run.status === 'cancelled') {
-    return <Alert title="The fit was cancelled">It stopped before a result was written.</Alert>;
-  }
+  if (run.status === 'failed' || run.status === 'cancelled') return <RunEndedAlert run={run} noun="fit" />;
   const result = run.result;
   if (!result) return <Alert tone="error">The run succeeded but carries no result.</Alert>;
   return (
@@ -145,15 +95,7 @@ export default function FitRunRoute() {
 
   if (run.isPending) return <LoadingPanel label="Loading the fit run…" />;
   if (run.isError) {
-    return (
-      <Page title="Fit run">
-        {isApiError(run.error) && run.error.status === 404 ? (
-          <ErrorPanel error={run.error} title="No fit run with this id" />
-        ) : (
-          <ErrorPanel error={run.error} onRetry={() => void run.refetch()} title="Could not load the fit run" />
-        )}
-      </Page>
-    );
+    return <RunLoadError title="Fit run" noun="fit run" error={run.error} onRetry={() => void run.refetch()} />;
   }
   const r = run.data;
   return (
@@ -169,7 +111,7 @@ export default function FitRunRoute() {
       }
     >
       <div className="flex flex-col gap-6">
-        <Timeline run={r} />
+        <RunTimeline run={r} />
         {isFinalFitStatus(r.status) ? (
           <Finished run={r} />
         ) : (

@@ -1,19 +1,16 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
 import { useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Alert } from '../../components/alert';
-import { Button } from '../../components/button';
-import { Card, CardTitle } from '../../components/card';
 import { Fact } from '../../components/fact';
 import { Page } from '../../components/page';
 import { StageProgressBar } from '../../components/progress-bar';
-import { describeError, ErrorPanel, LoadingPanel } from '../../components/query-state';
+import { LoadingPanel } from '../../components/query-state';
 import { TextLink } from '../../components/text-link';
 import { paths } from '../../config/paths';
-import { isApiError } from '../../lib/api-client';
-import { formatCount, formatDateTimeUtc } from '../../lib/format';
+import { formatCount } from '../../lib/format';
 import { useMe } from '../../features/auth/api/get-me';
 import { formatDurationMs, formatReducedChi2, formatRmsUs } from '../../features/fit-runs/lib/format-fit';
+import { RunCancelControl, RunEndedAlert, RunLoadError, RunSection as Section, RunTimeline } from '../../features/jobs/components/run-page-parts';
 import { useCancelSearchRun } from '../../features/search-runs/api/cancel-search-run';
 import { isFinalSearchStatus, searchRunQueryOptions, useSearchRun, type SearchResult, type SearchRun } from '../../features/search-runs/api/get-search-run';
 import { CandidatesTable } from '../../features/search-runs/components/candidates-table';
@@ -40,51 +37,13 @@ export const clientLoader =
 // api/contracts/search-runs.ts: each SearchValue carries its 1σ uncertainty in its unit.
 const UNCERTAINTY_NOTE = 'Uncertainties: 1σ from the fit; “held fixed” values were not fitted.';
 
-function Section({ title, children, description }: { title: string; children: ReactNode; description?: ReactNode }) {
-  return (
-    <Card>
-      <CardTitle>{title}</CardTitle>
-      {description ? <p className="-mt-2 mb-3 text-xs text-night-400">{description}</p> : null}
-      {children}
-    </Card>
-  );
-}
-
-function Timeline({ run }: { run: SearchRun }) {
-  const items: [string, string | null][] = [
-    ['Queued', run.queuedAt],
-    ['Started', run.startedAt],
-    ['Finished', run.finishedAt],
-  ];
-  return (
-    <p className="text-xs text-night-400">
-      {items
-        .filter(([, at]) => at)
-        .map(([label, at]) => `${label} ${formatDateTimeUtc(at!)}`)
-        .join(' · ')}
-      {run.requestedBy ? ` · by ${run.requestedBy.displayName}` : ''}
-    </p>
-  );
-}
-
 function InProgress({ run, canCancel }: { run: SearchRun; canCancel: boolean }) {
   const cancel = useCancelSearchRun(String(run.id));
   return (
     <Section title={run.status === 'queued' ? 'Waiting for a worker' : 'Searching'}>
       <div className="flex flex-col gap-4">
         <StageProgressBar className="min-w-40" label="Search progress" percent={run.progress?.percent ?? 0} stage={run.progress?.stage ?? run.status} />
-        {canCancel ? (
-          <div>
-            <Button variant="danger" busy={cancel.isPending} onClick={() => cancel.mutate()}>
-              Cancel search
-            </Button>
-          </div>
-        ) : null}
-        {cancel.isError ? (
-          <Alert tone="error">
-            {isApiError(cancel.error) && cancel.error.status === 409 ? 'The search had already finished.' : describeError(cancel.error)}
-          </Alert>
-        ) : null}
+        <RunCancelControl cancel={cancel} canCancel={canCancel} label="Cancel search" finishedText="The search had already finished." />
       </div>
     </Section>
   );
@@ -124,16 +83,7 @@ function Outcome({ run, result }: { run: SearchRun; result: SearchResult }) {
 }
 
 function Finished({ run, canSave, canRunFits }: { run: SearchRun; canSave: boolean; canRunFits: boolean }) {
-  if (run.status === 'failed') {
-    return (
-      <Alert tone="error" title="The search failed">
-        {run.errorMessage ?? 'No reason was given.'}
-      </Alert>
-    );
-  }
-  if (run.status === 'cancelled') {
-    return <Alert title="The search was cancelled">It stopped before a result was written.</Alert>;
-  }
+  if (run.status === 'failed' || run.status === 'cancelled') return <RunEndedAlert run={run} noun="search" />;
   const result = run.result;
   if (!result) return <Alert tone="error">The search succeeded but carries no result.</Alert>;
   return (
@@ -180,15 +130,7 @@ export default function SearchRunRoute() {
 
   if (run.isPending) return <LoadingPanel label="Loading the companion search…" />;
   if (run.isError) {
-    return (
-      <Page title="Companion search">
-        {isApiError(run.error) && run.error.status === 404 ? (
-          <ErrorPanel error={run.error} title="No companion search with this id" />
-        ) : (
-          <ErrorPanel error={run.error} onRetry={() => void run.refetch()} title="Could not load the companion search" />
-        )}
-      </Page>
-    );
+    return <RunLoadError title="Companion search" noun="companion search" error={run.error} onRetry={() => void run.refetch()} />;
   }
   const r = run.data;
   return (
@@ -203,7 +145,7 @@ export default function SearchRunRoute() {
       }
     >
       <div className="flex flex-col gap-6">
-        <Timeline run={r} />
+        <RunTimeline run={r} />
         {isFinalSearchStatus(r.status) ? (
           <Finished
             run={r}
