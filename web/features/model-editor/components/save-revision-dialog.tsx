@@ -6,17 +6,29 @@ import { Input } from '../../../components/input';
 
 const MAX_MESSAGE_LENGTH = 500; // docs/api-workflow.md: message 1–500 characters
 
-/** Asks what changed before a new revision is saved; Escape or Cancel closes it. */
+/**
+ * Asks what changed before a new revision is saved; Escape or Cancel closes it.
+ * The model editor uses the default wording; the residual explorer's parameter
+ * panel passes its own title, description, hint and submit label.
+ */
 export function SaveRevisionDialog({
   busy,
   error,
   onSave,
   onClose,
+  title = 'Save as a new revision',
+  description = 'Saved revisions never change; this one becomes the newest model of the pulsar.',
+  hint = 'For example: added the second companion, freed the parallax',
+  submitLabel = 'Save revision',
 }: {
   busy: boolean;
   error: string | null;
   onSave: (message: string) => void;
   onClose: () => void;
+  title?: string;
+  description?: string;
+  hint?: string;
+  submitLabel?: string;
 }) {
   const titleId = useId();
   const [message, setMessage] = useState('');
@@ -42,9 +54,9 @@ export function SaveRevisionDialog({
     <div className="fixed inset-0 z-50 flex items-center justify-center bg-night-950/80 px-4">
       <div role="dialog" aria-modal="true" aria-labelledby={titleId} className="w-full max-w-md rounded-xl border border-night-600 bg-night-900 p-6 shadow-2xl shadow-black/50">
         <h2 id={titleId} className="text-lg font-semibold text-night-100">
-          Save as a new revision
+          {title}
         </h2>
-        <p className="mt-1 text-sm text-night-300">Saved revisions never change; this one becomes the newest model of the pulsar.</p>
+        <p className="mt-1 text-sm text-night-300">{description}</p>
         <form
           className="mt-4 flex flex-col gap-4"
           onSubmit={(event) => {
@@ -53,7 +65,7 @@ export function SaveRevisionDialog({
           }}
         >
           {error ? <Alert tone="error">{error}</Alert> : null}
-          <Field label="Message" error={problem ?? undefined} hint="For example: added the second companion, freed the parallax">
+          <Field label="Message" error={problem ?? undefined} hint={hint}>
             {(control) => <Input {...control} autoFocus maxLength={MAX_MESSAGE_LENGTH + 50} value={message} onChange={(event) => setMessage(event.target.value)} />}
           </Field>
           <div className="flex justify-end gap-2">
@@ -61,7 +73,7 @@ export function SaveRevisionDialog({
               Cancel
             </Button>
             <Button type="submit" busy={busy}>
-              Save revision
+              {submitLabel}
             </Button>
           </div>
         </form>

@@ -1,4 +1,4 @@
-import { useEffect, useId, useMemo, useState } from 'react';
+import { useId, useMemo, useState } from 'react';
 import type { ExplorerTable } from '../../../../api/contracts/explorer';
 import { Alert } from '../../../components/alert';
 import { Button } from '../../../components/button';
@@ -14,6 +14,7 @@ import { useFitRun, type FitRun, type FittedParameter } from '../../fit-runs/api
 import { useQueueFitRun } from '../../fit-runs/api/queue-fit-run';
 import { formatUncertainty } from '../../fit-runs/lib/format-fit';
 import { useCreateModelRevision } from '../../model-editor/api/create-model-revision';
+import { SaveRevisionDialog } from '../../model-editor/components/save-revision-dialog';
 import { Switch } from '../../model-editor/components/solve-switch';
 import { modelFieldErrors, type ModelFieldError } from '../../model-editor/lib/server-field-errors';
 import type { RevisionWithModel } from '../../revisions/api/get-revision';
@@ -47,7 +48,6 @@ export interface ParameterPanelProps {
   onFitQueued?(fitRun: FitRun, reused: boolean): void;
 }
 
-const MAX_MESSAGE_LENGTH = 500; // docs/api-workflow.md: message 1–500 characters
 const NUMBER_TEXT = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
 
 /** A typed value the preview cannot use, or undefined. Sexagesimal and blank optional values pass. */
@@ -221,17 +221,18 @@ export function ParameterPanel({ pulsarId, explorer, editedModel, onEditedModelC
       ) : null}
 
       {dialog ? (
-        <MessageDialog
+        <SaveRevisionDialog
           title={dialog === 'queue' ? 'Save and queue a fit' : 'Save as a new revision'}
           description={
             dialog === 'queue'
               ? 'The edited model is saved as a new revision (revisions never change), then a fit of it is queued with the current TOA selection.'
               : 'The edited model is saved as a new revision; revisions never change. No fit is started.'
           }
+          hint="For example: added companion c from the periodogram, freed its period"
           submitLabel={dialog === 'queue' ? 'Save and queue fit' : 'Save revision'}
           busy={busy}
           error={dialogError}
-          onSubmit={(message) => void submit(message)}
+          onSave={(message) => void submit(message)}
           onClose={() => setDialog(null)}
         />
       ) : null}
@@ -402,73 +403,6 @@ function ParameterRow({
             Reset
           </Button>
         ) : null}
-      </div>
-    </div>
-  );
-}
-
-/** Asks for the revision message; Escape or Cancel closes it. */
-function MessageDialog({
-  title,
-  description,
-  submitLabel,
-  busy,
-  error,
-  onSubmit,
-  onClose,
-}: {
-  title: string;
-  description: string;
-  submitLabel: string;
-  busy: boolean;
-  error: string | null;
-  onSubmit(message: string): void;
-  onClose(): void;
-}) {
-  const titleId = useId();
-  const [message, setMessage] = useState('');
-  const [problem, setProblem] = useState<string | null>(null);
-  useEffect(() => {
-    const onKey = (event: KeyboardEvent) => {
-      if (event.key === 'Escape') onClose();
-    };
-    window.addEventListener('keydown', onKey);
-    return () => window.removeEventListener('keydown', onKey);
-  }, [onClose]);
-  const submit = () => {
-    const trimmed = message.trim();
-    if (trimmed.length === 0) return setProblem('Message: say in a few words what changed.');
-    if (trimmed.length > MAX_MESSAGE_LENGTH) return setProblem(`Message: at most ${MAX_MESSAGE_LENGTH} characters (now ${trimmed.length}).`);
-    setProblem(null);
-    onSubmit(trimmed);
-  };
-  return (
-    <div className="fixed inset-0 z-50 flex items-center justify-center bg-night-950/80 px-4">
-      <div role="dialog" aria-modal="true" aria-labelledby={titleId} className="w-full max-w-md rounded-xl border border-night-600 bg-night-900 p-6 shadow-2xl shadow-black/50">
-        <h2 id={titleId} className="text-lg font-semibold text-night-100">
-          {title}
-        </h2>
-        <p className="mt-1 text-sm text-night-300">{description}</p>
-        <form
-          className="mt-4 flex flex-col gap-4"
-          onSubmit={(event) => {
-            event.preventDefault();
-            submit();
-          }}
-        >
-          {error ? <Alert tone="error">{error}</Alert> : null}
-          <Field label="Message" error={problem ?? undefined} hint="For example: added companion c from the periodogram, freed its period">
-            {(control) => <Input {...control} autoFocus maxLength={MAX_MESSAGE_LENGTH + 50} value={message} onChange={(event) => setMessage(event.target.value)} />}
-          </Field>
-          <div className="flex justify-end gap-2">
-            <Button variant="secondary" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button type="submit" busy={busy}>
-              {submitLabel}
-            </Button>
-          </div>
-        </form>
       </div>
     </div>
   );
