@@ -2,62 +2,35 @@
  * Crash safety: the worker process is killed with SIGKILL while a fit runs; a
  * new worker process picks the job up after stall detection and the run
  * completes exactly once — one fit_residuals row, one set of outputs.
- * Workers run as child processes (`node --import tsx worker/index.ts`, one
- * process, so SIGKILL hits the worker itself) with short lock and stall times.
+ * Workers run as child processes with short lock and stall times
+ * (helpers/crash-harness.ts).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signedInClient, type Client } from '../api/helpers/agents';
-import { createPulsarRow, createUser } from '../api/helpers/factories';
-import { buildTestApp, type TestApp } from '../api/helpers/test-app';
+import type { Client } from '../api/helpers/agents';
+import { createPulsarRow } from '../api/helpers/factories';
+import type { TestApp } from '../api/helpers/test-app';
 import { createTestObservatory, demoModelJson, offsetStartModel, simulatedCsv, storeCsv } from './fit-run-fixtures';
+import { startCrashHarness, waitFor, type CrashHarness } from './helpers/crash-harness';
 
 const TOA_COUNT = 5000;
-const CHILD_ENV = { PULSEKEEPER_PROFILE: 'test', PULSEKEEPER_WORKER_LOCK_MS: '5000', PULSEKEEPER_WORKER_STALLED_INTERVAL_MS: '2000' };
 
+let harness: CrashHarness;
 let t: TestApp;
 let analyst: Client;
-const children: ChildProcess[] = [];
-
-function startWorkerProcess(): ChildProcess {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'worker/index.ts'], {
-    cwd: t.config.rootDir,
-    env: { ...process.env, ...CHILD_ENV },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  child.stdout?.resume();
-  child.stderr?.resume();
-  children.push(child);
-  return child;
-}
+let startWorkerProcess: CrashHarness['startWorkerProcess'];
 
 async function statusOf(id: number): Promise<string> {
   const row = await t.knex('fit_runs').where({ id }).first('status');
   return row.status as string;
 }
 
-async function waitFor(what: string, check: () => Promise<boolean>, timeoutMs: number): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (!(await check())) {
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((resolve) => setTimeout(resolve, 50));
-  }
-}
-
 beforeAll(async () => {
-  t = buildTestApp();
-  const a = await createUser(t.knex, 'analyst');
-  analyst = await signedInClient(t.app, a.email, a.password);
+  harness = await startCrashHarness();
+  ({ t, analyst, startWorkerProcess } = harness);
 });
 
 afterAll(async () => {
-  for (const child of children) {
-    if (child.exitCode === null && child.signalCode === null) {
-      child.kill('SIGTERM');
-      await new Promise((resolve) => child.once('exit', resolve));
-    }
-  }
-  await t.close();
+  await harness?.close();
 });
 
 describe('a worker killed with SIGKILL during a fit', () => {
