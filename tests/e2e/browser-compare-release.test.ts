@@ -10,11 +10,11 @@
  * demo's starting model of FPG-J1839-1127 (spin and DM free), a revision that also
  * frees the position (the demo's off-sky pulsar), and a finished fit of each.
  */
-import type { APIRequestContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RunningApi } from '../../api/server';
 import { artifactPath } from './helpers/browser';
-import { startBrowserScenario, type BrowserScenario } from './helpers/browser-scenario';
+import { startBrowserScenario, type BrowserScenario, type ScenarioApi } from './helpers/browser-scenario';
 
 const PULSAR = 'FPG-J1839-1127'; // the demo's pulsar with a slightly wrong starting position (api/db/demo-scenario/demo-pulsars.ts)
 const FIT_WAIT_MS = 240_000;
@@ -37,26 +37,8 @@ afterAll(async () => {
   await scenario?.close();
 });
 
-/** The API as the signed-in browser user (same cookies), unwrapping `{ data }`. */
-function apiAs(request: APIRequestContext) {
-  let token: string | null = null;
-  const call = async <T>(method: 'get' | 'post', path: string, body?: unknown): Promise<T> => {
-    const headers: Record<string, string> = {};
-    if (method === 'post') {
-      token ??= ((await (await request.get(`${api.url}/api/auth/csrf`)).json()) as { data: { token: string } }).data.token;
-      headers['x-csrf-token'] = token;
-    }
-    const response = method === 'get' ? await request.get(`${api.url}${path}`) : await request.post(`${api.url}${path}`, { data: body, headers });
-    const json = (await response.json().catch(() => ({}))) as { data: T; error?: { message: string } };
-    if (!response.ok()) throw new Error(`${method.toUpperCase()} ${path} → ${response.status()}: ${json.error?.message ?? ''}`);
-    return json.data;
-  };
-  return { get: <T>(path: string) => call<T>('get', path), post: <T>(path: string, body: unknown) => call<T>('post', path, body) };
-}
-type Api = ReturnType<typeof apiAs>;
-
 /** Queues a fit of the revision (or takes the identical finished one the API offers) and waits for it to succeed. */
-async function finishedFit(client: Api, revisionId: number): Promise<number> {
+async function finishedFit(client: ScenarioApi, revisionId: number): Promise<number> {
   const queued = await client.post<{ fitRun: { id: number } }>(`/api/pulsars/${pulsarId}/fit-runs`, { revisionId });
   const id = queued.fitRun.id;
   const until = Date.now() + FIT_WAIT_MS;
@@ -70,7 +52,7 @@ async function finishedFit(client: Api, revisionId: number): Promise<number> {
 }
 
 /** The starting revision and a child that also frees the position (test setup), each with a finished fit. */
-async function twoFinishedFits(client: Api) {
+async function twoFinishedFits(client: ScenarioApi) {
   const revisions = await client.get<{ id: number }[]>(`/api/pulsars/${pulsarId}/revisions`);
   const start = revisions[revisions.length - 1]; // the demo's starting model (oldest)
   const model = (await client.get<{ model: { solve_for: string[] } }>(`/api/revisions/${start.id}`)).model;
@@ -85,7 +67,7 @@ async function twoFinishedFits(client: Api) {
 
 /** The browser steps: pick, compare, save, release, and see the release everywhere. */
 async function compareSaveAndRelease(page: Page): Promise<void> {
-  const { startRun, positionRun, positionRevisionId } = await twoFinishedFits(apiAs(page.request));
+  const { startRun, positionRun, positionRevisionId } = await twoFinishedFits(scenario.apiAs(page.request));
 
   // Pick the two runs on the pulsar page, the starting fit first (the reference).
   await page.goto(`${api.url}/pulsars/${pulsarId}`);

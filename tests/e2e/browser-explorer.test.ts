@@ -11,12 +11,12 @@
  * companions, found by a companion search and saved from it; if the search does not
  * give two companions, the test saves them itself (marked as test setup), then a fit.
  */
-import type { APIRequestContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { HIDDEN_COMPANIONS } from '../../api/db/demo-scenario/demo-pulsars';
 import type { RunningApi } from '../../api/server';
 import { artifactPath } from './helpers/browser';
-import { startBrowserScenario, type BrowserScenario } from './helpers/browser-scenario';
+import { startBrowserScenario, type BrowserScenario, type ScenarioApi } from './helpers/browser-scenario';
 
 const PULSAR = 'FPG-J2208+4121'; // the demo's pulsar with two hidden companions (api/db/demo-scenario/README.md)
 const SEARCH_WAIT_MS = 240_000;
@@ -39,24 +39,6 @@ afterAll(async () => {
   await scenario?.close();
 });
 
-/** The API as the signed-in browser user (same cookies), unwrapping `{ data }`. */
-function apiAs(request: APIRequestContext) {
-  let token: string | null = null;
-  const call = async <T>(method: 'get' | 'post', path: string, body?: unknown): Promise<{ status: number; data: T }> => {
-    const headers: Record<string, string> = {};
-    if (method === 'post') {
-      token ??= ((await (await request.get(`${api.url}/api/auth/csrf`)).json()) as { data: { token: string } }).data.token;
-      headers['x-csrf-token'] = token;
-    }
-    const response = method === 'get' ? await request.get(`${api.url}${path}`) : await request.post(`${api.url}${path}`, { data: body, headers });
-    const json = (await response.json().catch(() => ({}))) as { data: T; error?: { message: string } };
-    if (!response.ok()) throw new Error(`${method.toUpperCase()} ${path} → ${response.status()}: ${json.error?.message ?? ''}`);
-    return { status: response.status(), data: json.data };
-  };
-  return { get: <T>(path: string) => call<T>('get', path), post: <T>(path: string, body: unknown) => call<T>('post', path, body) };
-}
-
-type Api = ReturnType<typeof apiAs>;
 interface Revision { id: number; model?: { companions?: unknown[] } }
 
 async function waitFinal<T extends { status: string }>(read: () => Promise<T>, timeoutMs: number): Promise<T> {
@@ -69,20 +51,20 @@ async function waitFinal<T extends { status: string }>(read: () => Promise<T>, t
 }
 
 /** A revision with the two companions: from a companion search when it finds both, else saved here as test setup. */
-async function revisionWithCompanions(client: Api): Promise<{ revisionId: number; how: string }> {
-  const revisions = (await client.get<Revision[]>(`/api/pulsars/${pulsarId}/revisions`)).data;
+async function revisionWithCompanions(client: ScenarioApi): Promise<{ revisionId: number; how: string }> {
+  const revisions = await client.get<Revision[]>(`/api/pulsars/${pulsarId}/revisions`);
   const start = revisions[revisions.length - 1]; // the demo's starting model (oldest)
   try {
     const created = await client.post<{ searchRun: { id: number } }>(`/api/pulsars/${pulsarId}/search-runs`, { revisionId: start.id, maxCompanions: 3 });
-    const run = await waitFinal(async () => (await client.get<{ status: string; result: { resultingModel?: { companions?: unknown[] } } | null }>(`/api/search-runs/${created.data.searchRun.id}`)).data, SEARCH_WAIT_MS);
+    const run = await waitFinal(async () => client.get<{ status: string; result: { resultingModel?: { companions?: unknown[] } } | null }>(`/api/search-runs/${created.searchRun.id}`), SEARCH_WAIT_MS);
     if (run.status === 'succeeded' && (run.result?.resultingModel?.companions?.length ?? 0) >= 2) {
-      const saved = await client.post<Revision>(`/api/search-runs/${created.data.searchRun.id}/save-revision`, { message: 'Companions found by the search (browser test)' });
-      return { revisionId: saved.data.id, how: 'search' };
+      const saved = await client.post<Revision>(`/api/search-runs/${created.searchRun.id}/save-revision`, { message: 'Companions found by the search (browser test)' });
+      return { revisionId: saved.id, how: 'search' };
     }
   } catch {
     // no search available or it failed: fall through to the test's own setup
   }
-  const startModel = (await client.get<Revision & { model: Record<string, unknown> }>(`/api/revisions/${start.id}`)).data.model;
+  const startModel = (await client.get<Revision & { model: Record<string, unknown> }>(`/api/revisions/${start.id}`)).model;
   const solveFor = [...((startModel.solve_for as string[]) ?? [])];
   for (const c of HIDDEN_COMPANIONS) for (const key of ['period_days', 'projected_semimajor_axis_lt_s', 'periastron_epoch_mjd']) solveFor.push(`companions[${c.name}].${key}`);
   const saved = await client.post<Revision>(`/api/pulsars/${pulsarId}/revisions`, {
@@ -90,7 +72,7 @@ async function revisionWithCompanions(client: Api): Promise<{ revisionId: number
     message: 'TEST SETUP (browser test): the two companions at 71.4 d and 283.6 d',
     parentId: start.id,
   });
-  return { revisionId: saved.data.id, how: 'test setup' };
+  return { revisionId: saved.id, how: 'test setup' };
 }
 
 /** Waits until the periodogram below the plot is drawn and no longer recomputing (screenshots show the settled page). */
@@ -133,12 +115,12 @@ function boxAroundTwo(points: { x: number; y: number }[]): { x0: number; y0: num
 describe('the residual explorer in the browser', () => {
   it('lets the analyst switch a companion off and on, exclude two box-selected TOAs and refit', async () => {
     const page = await signIn('analyst');
-    const client = apiAs(page.request);
+    const client = scenario.apiAs(page.request);
     const { revisionId, how } = await revisionWithCompanions(client);
     const queued = await client.post<{ fitRun: { id: number } }>(`/api/pulsars/${pulsarId}/fit-runs`, { revisionId });
-    const fit = await waitFinal(async () => (await client.get<{ status: string; errorMessage: string | null }>(`/api/fit-runs/${queued.data.fitRun.id}`)).data, FIT_WAIT_MS);
+    const fit = await waitFinal(async () => client.get<{ status: string; errorMessage: string | null }>(`/api/fit-runs/${queued.fitRun.id}`), FIT_WAIT_MS);
     expect(fit.status, `fit of the ${how} revision: ${fit.errorMessage ?? ''}`).toBe('succeeded');
-    console.info(`browser-explorer: companions from ${how}, fit #${queued.data.fitRun.id}`);
+    console.info(`browser-explorer: companions from ${how}, fit #${queued.fitRun.id}`);
 
     // Opened from the pulsar page's link.
     await page.goto(`${api.url}/pulsars/${pulsarId}`);
@@ -188,7 +170,7 @@ describe('the residual explorer in the browser', () => {
     await show.waitFor({ timeout: FIT_WAIT_MS });
     await show.click();
     await page.locator('section[aria-label="Residual plot"] .js-plotly-plot .legend').waitFor({ timeout: 60_000 });
-    await expect.poll(async () => page.url()).not.toContain(`fit=${queued.data.fitRun.id}`);
+    await expect.poll(async () => page.url()).not.toContain(`fit=${queued.fitRun.id}`);
     await expect.poll(async () => number(await page.getByTestId('summary-excluded').textContent())).toBe(excludedBefore + 2);
     expect(await summary.getByText(/exclusions changed since the fit/).count()).toBe(0);
     await settle(page);

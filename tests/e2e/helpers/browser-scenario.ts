@@ -4,13 +4,19 @@
  * browser, and sign demo users in with their console errors collected.
  */
 import type { Knex } from 'knex';
-import type { BrowserContext, Page } from 'playwright-core';
+import type { APIRequestContext, BrowserContext, Page } from 'playwright-core';
 import { loadConfig } from '../../../api/config';
 import { createKnex } from '../../../api/db/create-knex';
 import { seedDemo, type DemoSignIn } from '../../../api/db/seed-demo';
 import { startApi, type RunningApi } from '../../../api/server';
 import { startWorker } from '../../../worker/index';
 import { launchBrowser } from './browser';
+
+/** The API as a signed-in browser user: `{ data }` unwrapped, a non-2xx answer thrown as "METHOD path → status: message". */
+export interface ScenarioApi {
+  get<T>(path: string): Promise<T>;
+  post<T>(path: string, body: unknown): Promise<T>;
+}
 
 export interface BrowserScenario {
   api: RunningApi;
@@ -20,6 +26,8 @@ export interface BrowserScenario {
   consoleErrors: string[];
   /** Opens a page and signs in as the demo user of this role; resolves once the dashboard shows. */
   signIn(role: string): Promise<Page>;
+  /** The API with this request context's cookies (e.g. `page.request`), sending the CSRF token on posts. */
+  apiAs(request: APIRequestContext): ScenarioApi;
   /** Closes the browser, the worker and the API. */
   close(): Promise<void>;
 }
@@ -68,6 +76,21 @@ export async function startBrowserScenario(prepare?: (knex: Knex) => Promise<voi
       await page.getByRole('button', { name: 'Sign in' }).click();
       await page.getByRole('heading', { name: 'Dashboard' }).waitFor();
       return page;
+    },
+    apiAs(request) {
+      let token: string | null = null;
+      const call = async <T>(method: 'get' | 'post', path: string, body?: unknown): Promise<T> => {
+        const headers: Record<string, string> = {};
+        if (method === 'post') {
+          token ??= ((await (await request.get(`${api.url}/api/auth/csrf`)).json()) as { data: { token: string } }).data.token;
+          headers['x-csrf-token'] = token;
+        }
+        const response = method === 'get' ? await request.get(`${api.url}${path}`) : await request.post(`${api.url}${path}`, { data: body, headers });
+        const json = (await response.json().catch(() => ({}))) as { data: T; error?: { message: string } };
+        if (!response.ok()) throw new Error(`${method.toUpperCase()} ${path} → ${response.status()}: ${json.error?.message ?? ''}`);
+        return json.data;
+      };
+      return { get: <T>(path: string) => call<T>('get', path), post: <T>(path: string, body: unknown) => call<T>('post', path, body) };
     },
     async close() {
       await browser.close();
