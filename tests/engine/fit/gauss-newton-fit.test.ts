@@ -188,3 +188,43 @@ describe('fitGaussNewton: a double-double parameter keeps its digits', () => {
     expect(out.uncertainties[0]).toBeLessThan(2 ** -43);
   });
 });
+
+describe('fitGaussNewton at a minimum with a large χ²', () => {
+  // A straight line fitted to data holding a large unmodelled sinusoid (χ² ~ 5e5), started 0.003σ from the
+  // exact minimum, where every evaluation is rounded a little worse than the one before (1e-9 relative per
+  // call, standing in for evaluation rounding larger than the remaining gain): the step's predicted gain
+  // (~2e-5) is below what χ² can resolve, so no step halving lowers χ². That is convergence, not a failure.
+  function largeMisfitProblem(): FitProblem {
+    const n = 500;
+    const x = Float64Array.from({ length: n }, (_, i) => i / n);
+    const sigmasS = new Float64Array(n).fill(1e-6);
+    const y = x.map((t) => 3e-6 + 2e-6 * t + 4.5e-5 * Math.sin(2 * Math.PI * 7.3 * t));
+    // The exact weighted least-squares line, then a start 0.003σ away from it.
+    const design = new Float64Array(2 * n);
+    x.forEach((t, i) => ((design[i] = 1), (design[n + i] = t))); // column-major n×2
+    const exact = solveWeightedLeastSquares(design, n, 2, y, sigmasS, ['a', 'b']);
+    let calls = 0;
+    return {
+      parameterNames: ['a', 'b'],
+      initialValues: [
+        [0, exact.solution[0] + 0.003 * exact.uncertainties[0]],
+        [0, exact.solution[1] - 0.003 * exact.uncertainties[1]],
+      ],
+      sigmasS,
+      evaluate(values, wantDesign) {
+        calls++;
+        const a = value(values[0]);
+        const b = value(values[1]);
+        const residualsS = y.map((v, i) => (v - (a + b * x[i])) * (1 + 1e-9 * calls));
+        return wantDesign ? { residualsS, design: design.map((d) => -d) } : { residualsS };
+      },
+    };
+  }
+
+  it('reports convergence when the predicted χ² gain is below χ²’s own rounding', () => {
+    const out = fitGaussNewton(largeMisfitProblem());
+    expect(out.chi2).toBeGreaterThan(1e5);
+    expect(out.converged).toBe(true);
+    expect(out.warnings).toEqual([]);
+  });
+});

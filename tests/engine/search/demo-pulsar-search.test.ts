@@ -17,6 +17,8 @@ import { observatories, sigmasOff } from './search-test-data';
 
 const HIDDEN = 'FPG-J2208+4121';
 let report: CompanionSearchReport;
+let allToas: Toa[];
+let startModel: ReturnType<typeof readModelFile>;
 
 function toasOf(p: DemoPulsarData): Toa[] {
   return p.batches.flatMap((b) => {
@@ -33,6 +35,8 @@ beforeAll(() => {
   const start = readModelFile(pulsar.startingModel);
   expect(start.companions).toEqual([]);
   report = searchCompanions(start, toas, computeArrivalGeometry(toas, observatories));
+  allToas = toas;
+  startModel = start;
 }, 120_000);
 
 describe(`the companion search on the demo pulsar ${HIDDEN}`, () => {
@@ -60,4 +64,12 @@ describe(`the companion search on the demo pulsar ${HIDDEN}`, () => {
     expect(report.finalFit.reducedChi2).toBeGreaterThan(1.5);
     expect(report.warnings.join('\n')).toMatch(/reduced χ² is \d\.\d\d/);
   });
+
+  it('still finds both after two TOAs are excluded (the first orbit fit ends at a large-χ² minimum)', () => {
+    // Rows 75 and 78 left out: the circular fit of the first companion, with the second one still unmodelled
+    // (χ² ≈ 1e6), stalls where its predicted gain is below χ²'s rounding; that must count as converged.
+    const toas = allToas.filter((_, i) => i !== 74 && i !== 77);
+    const fewer = searchCompanions(startModel, toas, computeArrivalGeometry(toas, observatories));
+    expect(fewer.candidates.map((c) => c.status)).toEqual(['accepted', 'accepted']);
+  }, 120_000);
 });

@@ -97,7 +97,9 @@ const CONDITION_WARNING_LEVEL = 1e10;
  *           Nocedal & Wright, Numerical Optimization, 2nd ed. 2006, §3.1 and
  *           §10.3). A trial with non-finite χ² counts as a rise. If no halving
  *           lowers χ², the fit stops: converged if the step was already below
- *           the tolerance of Note 2, otherwise converged = false with a warning.
+ *           the tolerance of Note 2 or the linearisation predicts a χ² gain below
+ *           1e-9 of χ² (a large-χ² minimum, where the gain is under χ²'s own
+ *           rounding), otherwise converged = false with a warning.
  *        4. Non-convergence after maxIterations returns converged = false and a
  *           warning holding the last χ². A condition number above 1e10 (after
  *           column scaling) adds a warning that the uncertainties are fragile.
@@ -138,7 +140,10 @@ export function fitGaussNewton(problem: FitProblem): FitOutcome {
 
     const trial = dampedStep(problem, values, step, chi2, stepIsSmall, n, p);
     if (!trial) {
-      if (stepIsSmall) converged = true;
+      // At a minimum with a large χ² the remaining step can be worth less than the rounding of χ² itself:
+      // the linear model's predicted gain (χ² − linear.chi2) below the tolerance of Note 2 means converged.
+      const predictedGainIsNegligible = chi2 - linear.chi2 <= CHI2_RELATIVE_TOLERANCE * chi2;
+      if (stepIsSmall || predictedGainIsNegligible) converged = true;
       else {
         warnings.push(
           `χ² could not be lowered along the Gauss–Newton step even after ${MAX_STEP_HALVINGS} halvings ` +
