@@ -85,6 +85,7 @@ describe('the companion search in the browser', () => {
 
     // Two accepted candidates near the hidden periods, each with its ± uncertainty.
     const accepted = await acceptedPeriods(candidates);
+    if (accepted.length !== 2) await page.screenshot({ path: artifactPath('search-failure.png'), fullPage: true });
     expect(accepted, JSON.stringify(accepted)).toHaveLength(2);
     for (const hidden of HIDDEN_COMPANIONS) {
       const truePeriodDays = Number(hidden.period_days); // the demo's invented truth (71.38 d, 283.6 d)
