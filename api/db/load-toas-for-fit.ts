@@ -34,20 +34,33 @@ export function labelsOf(value: ToaRow['labels']): Record<string, string> {
  *        3. A pulsar without TOAs (or unknown) gives empty arrays.
  */
 export async function loadToasForFit(knex: Knex, pulsarId: number): Promise<ToasForFit> {
-  const activeExclusion = knex('toa_exclusions').select(knex.raw('1')).whereRaw('toa_exclusions.toa_id = toas.id').whereNull('restored_at');
-  const rows = (await knex('toas')
+  const { toas, toaIds } = await loadPulsarToas(knex, pulsarId, 'included');
+  const excluded = (await knex('toas')
     .where({ pulsar_id: pulsarId })
-    .whereNotExists(activeExclusion)
+    .whereExists(activeExclusion(knex))
+    .orderBy('id')
+    .select('id')) as { id: number | string }[];
+  return { toas, toaIds, excludedIds: excluded.map((r) => Number(r.id)) };
+}
+
+/** `toa_exclusions` rows still in force for the outer query's `toas` row. */
+function activeExclusion(knex: Knex): Knex.QueryBuilder {
+  return knex('toa_exclusions').select(knex.raw('1')).whereRaw('toa_exclusions.toa_id = toas.id').whereNull('restored_at');
+}
+
+/**
+ * A pulsar's included or excluded TOAs as engine `Toa` objects, sorted by MJD (then id), with their ids
+ * (Notes 1–2 of loadToasForFit; `row` counts within the returned list).
+ */
+export async function loadPulsarToas(knex: Knex, pulsarId: number, which: 'included' | 'excluded'): Promise<{ toas: Toa[]; toaIds: number[] }> {
+  const query = knex('toas').where({ pulsar_id: pulsarId });
+  if (which === 'included') query.whereNotExists(activeExclusion(knex));
+  else query.whereExists(activeExclusion(knex));
+  const rows = (await query
     .orderBy([{ column: 'mjd_day' }, { column: 'mjd_fraction' }, { column: 'id' }])
     .select(
       'id', 'line_number', 'mjd_day', 'mjd_fraction', 'uncertainty_us', 'frequency_mhz', 'observatory', 'backend', 'pulse_number', 'labels',
     )) as ToaRow[];
-  const excluded = (await knex('toas')
-    .where({ pulsar_id: pulsarId })
-    .whereExists(activeExclusion)
-    .orderBy('id')
-    .select('id')) as { id: number | string }[];
-
   const toas = rows.map((r, i): Toa => ({
     row: i + 1,
     line: r.line_number,
@@ -59,5 +72,5 @@ export async function loadToasForFit(knex: Knex, pulsarId: number): Promise<Toas
     pulseNumber: r.pulse_number === null ? null : Number(r.pulse_number),
     labels: labelsOf(r.labels),
   }));
-  return { toas, toaIds: rows.map((r) => Number(r.id)), excludedIds: excluded.map((r) => Number(r.id)) };
+  return { toas, toaIds: rows.map((r) => Number(r.id)) };
 }
