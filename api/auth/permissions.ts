@@ -25,7 +25,6 @@ export const PERMISSIONS = {
   'jobs:read': ALL,
   'campaigns:read': ALL,
   'audit-log:read': ANALYST_UP, // the log names people with their e-mail addresses
-  // later issues
   'toas:upload': OBSERVER_UP,
   'toas:exclude': ANALYST_UP,
   'models:edit': ANALYST_UP,
@@ -35,6 +34,7 @@ export const PERMISSIONS = {
   'campaigns:start': LEAD_UP,
   'fits:compare': LEAD_UP,
   'toa-batches:delete': LEAD_UP,
+  // later: observing forecasts
   'forecasts:download': OBSERVER_UP,
 } as const satisfies Record<string, readonly Role[]>;
 
