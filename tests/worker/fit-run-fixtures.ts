@@ -7,6 +7,7 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Knex } from 'knex';
+import { expect } from 'vitest';
 import { mjdColumns, type ObservatoryJson } from '../../api/db/observatories';
 import { storeToaBatch } from '../../api/services/toas/store-toa-batch';
 import { parseObservatory } from '../../worker/timing/earth/read-observatories';
@@ -14,6 +15,7 @@ import { readModelFile } from '../../worker/timing/model/read-model-file';
 import { simulateToas } from '../../worker/timing/simulate/simulate-toas';
 import { parseMjd } from '../../worker/timing/time/mjd-string';
 import { writeToaCsv } from '../../worker/timing/toas/write-toa-csv';
+import type { Client } from '../api/helpers/agents';
 import { uniqueSuffix } from '../api/helpers/factories';
 
 const DEMO_MODEL = path.join(import.meta.dirname, '../fixtures/cli/demo-model.json');
@@ -67,4 +69,11 @@ export function simulatedCsv(modelJson: Record<string, unknown>, observatory: Ob
 export async function storeCsv(knex: Knex, pulsarId: number, csv: string, uploadedBy: number | null = null): Promise<number> {
   const batch = await storeToaBatch(knex, { pulsarId, fileName: 'simulated.csv', uploadedBy, bytes: Buffer.from(csv, 'utf8') } );
   return batch.id;
+}
+
+/** Saves `model` as a new revision of the pulsar through the API (fails the test otherwise); returns its id. */
+export async function saveRevision(client: Client, pulsarId: number, model: Record<string, unknown>, message = 'start'): Promise<number> {
+  const res = await client.agent.post(`/api/pulsars/${pulsarId}/revisions`).set('x-csrf-token', client.csrf).send({ model, message });
+  expect(res.status, JSON.stringify(res.body)).toBe(201);
+  return res.body.data.id as number;
 }

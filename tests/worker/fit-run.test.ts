@@ -19,7 +19,7 @@ import { readModelFile } from '../../worker/timing/model/read-model-file';
 import { signedInClient, type Client } from '../api/helpers/agents';
 import { createPulsarRow, createUser } from '../api/helpers/factories';
 import { buildTestApp, type TestApp } from '../api/helpers/test-app';
-import { createTestObservatory, demoModelJson, offsetStartModel, simulatedCsv, storeCsv } from './fit-run-fixtures';
+import { createTestObservatory, demoModelJson, offsetStartModel, simulatedCsv, storeCsv, saveRevision } from './fit-run-fixtures';
 
 const TOA_COUNT = 300;
 const START_FREQUENCY_HZ = '218.8118472401'; // truth 218.81184724012345 (tests/fixtures/cli/demo-model.json): 2.3e-12 Hz off
@@ -37,11 +37,7 @@ let revisionId: number;
 const finished: FitRunFinished[] = [];
 let stopListening: () => void;
 
-async function newRevision(pulsarId: number, model: Record<string, unknown>, message = 'start'): Promise<number> {
-  const res = await analyst.agent.post(`/api/pulsars/${pulsarId}/revisions`).set('x-csrf-token', analyst.csrf).send({ model, message });
-  expect(res.status, JSON.stringify(res.body)).toBe(201);
-  return res.body.data.id as number;
-}
+const newRevision = (pulsarId: number, model: Record<string, unknown>, message?: string) => saveRevision(analyst, pulsarId, model, message);
 
 async function queueFit(pulsarId: number, body: Record<string, unknown>) {
   return analyst.agent.post(`/api/pulsars/${pulsarId}/fit-runs`).set('x-csrf-token', analyst.csrf).send(body);

@@ -22,7 +22,7 @@ import { readModelFile } from '../../worker/timing/model/read-model-file';
 import { signedInClient, type Client } from '../api/helpers/agents';
 import { createPulsarRow, createUser } from '../api/helpers/factories';
 import { buildTestApp, type TestApp } from '../api/helpers/test-app';
-import { createTestObservatory, demoModelJson, simulatedCsv, storeCsv } from './fit-run-fixtures';
+import { createTestObservatory, demoModelJson, simulatedCsv, storeCsv, saveRevision } from './fit-run-fixtures';
 
 const TOA_COUNT = 300;
 /** The injected companion (invented): 61.5 d, 30 µs light-travel amplitude (x = 3e-5 lt-s), circular. */
@@ -52,11 +52,7 @@ let csv: string;
 let startModel: Record<string, unknown>;
 let revisionId: number;
 
-async function newRevision(pulsarId: number, model: Record<string, unknown>, message = 'start'): Promise<number> {
-  const res = await analyst.agent.post(`/api/pulsars/${pulsarId}/revisions`).set('x-csrf-token', analyst.csrf).send({ model, message });
-  expect(res.status, JSON.stringify(res.body)).toBe(201);
-  return res.body.data.id as number;
-}
+const newRevision = (pulsarId: number, model: Record<string, unknown>, message?: string) => saveRevision(analyst, pulsarId, model, message);
 
 async function queueSearch(pulsarId: number, body: Record<string, unknown>) {
   return analyst.agent.post(`/api/pulsars/${pulsarId}/search-runs`).set('x-csrf-token', analyst.csrf).send(body);
