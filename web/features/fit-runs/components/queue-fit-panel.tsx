@@ -9,6 +9,7 @@ import { TextLink } from '../../../components/text-link';
 import { paths } from '../../../config/paths';
 import { formatDateTimeUtc } from '../../../lib/format';
 import type { Revision } from '../../revisions/api/get-revisions';
+import { RevisionOptions } from '../../revisions/components/revision-options';
 import type { FitRun } from '../api/get-fit-run';
 import { useQueueFitRun } from '../api/queue-fit-run';
 import { formatReducedChi2, formatRmsUs } from '../lib/format-fit';
@@ -53,13 +54,7 @@ export function QueueFitPanel({ pulsarId, revisions }: { pulsarId: string; revis
         <Field label="Model revision" className="min-w-64 flex-1">
           {(control) => (
             <Select {...control} value={String(revisionId)} onChange={(e) => { setChosen(e.target.value); setReused(null); }}>
-              {revisions.map((r, i) => (
-                <option key={r.id} value={String(r.id)}>
-                  #{r.id} — {r.message}
-                  {i === 0 ? ' (latest)' : ''}
-                  {r.releasedAt ? ' [released]' : ''}
-                </option>
-              ))}
+              <RevisionOptions revisions={revisions} />
             </Select>
           )}
         </Field>

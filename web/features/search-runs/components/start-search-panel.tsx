@@ -12,6 +12,7 @@ import { isApiError } from '../../../lib/api-client';
 import { formatDateTimeUtc } from '../../../lib/format';
 import { CreateSearchRunBody, SEARCH_DEFAULTS } from '../../../../api/contracts/search-runs';
 import type { Revision } from '../../revisions/api/get-revisions';
+import { RevisionOptions } from '../../revisions/components/revision-options';
 import type { SearchRun } from '../api/get-search-run';
 import { useStartSearchRun } from '../api/start-search-run';
 
@@ -165,13 +166,7 @@ export function StartSearchPanel({ pulsarId, revisions }: { pulsarId: string; re
               setReused(null);
             }}
           >
-            {revisions.map((r, i) => (
-              <option key={r.id} value={String(r.id)}>
-                #{r.id} — {r.message}
-                {i === 0 ? ' (latest)' : ''}
-                {r.releasedAt ? ' [released]' : ''}
-              </option>
-            ))}
+            <RevisionOptions revisions={revisions} />
           </Select>
         )}
       </Field>
